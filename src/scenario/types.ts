@@ -1,0 +1,216 @@
+/**
+ * The normalised scenario: what the scenario file says, with every quantity converted to SI
+ * (m, kg, s, m/s, N, Pa, K, m²; angles stay in degrees as the format document fixes) and every
+ * default filled in. Everything downstream of `src/scenario` reads only this shape.
+ */
+
+export type VehicleKind = 'rocket' | 'projectile' | 'release';
+
+/** Drag coefficient by Mach number; a constant Cd is a one-row table. Linear between rows, held outside. */
+export interface DragTable {
+  mach: number[];
+  cd: number[];
+}
+
+/** Thrust curve: strictly increasing times from 0, thrust never negative. */
+export interface ThrustCurve {
+  time: number[];
+  thrust: number[];
+}
+
+export interface Motor {
+  thrust: ThrustCurve;
+  /** Where the curve came from: "inline" or the CSV path as written in the scenario. */
+  source: string;
+  propellantMass: number;
+}
+
+export interface Vehicle {
+  kind: VehicleKind;
+  /** kg; for rockets, without propellant. */
+  mass: number;
+  /** m². */
+  referenceArea: number;
+  drag: DragTable;
+  motor?: Motor;
+}
+
+export interface RocketLaunch {
+  kind: 'rocket';
+  rail: number;
+  tilt: number;
+  azimuth: number;
+}
+
+export interface ProjectileLaunch {
+  kind: 'projectile';
+  speed: number;
+  elevation: number;
+  azimuth: number;
+  height: number;
+}
+
+export interface ReleaseLaunch {
+  kind: 'release';
+  height: number;
+  speed: number;
+  heading: number;
+  east: number;
+  north: number;
+}
+
+export type Launch = RocketLaunch | ProjectileLaunch | ReleaseLaunch;
+
+export type TriggerKind = 'apogee' | 'altitude' | 'time';
+
+export interface RecoveryStage {
+  name: string;
+  trigger: TriggerKind;
+  /** s after the trigger. */
+  delay: number;
+  /** m above the pad, for trigger "altitude" (met on the way down). */
+  altitude?: number;
+  /** s after launch, for trigger "time". */
+  time?: number;
+  /** Cd·A in m²; a `descentRate` in the file is converted with 2 m g0 / (1.225 v²). */
+  dragArea: number;
+  /** The descent rate as written, when the file gave one (kept for reports). */
+  descentRate?: number;
+}
+
+export interface ProfileRow {
+  altitude: number;
+  speed: number;
+  from: number;
+}
+
+export interface Wind {
+  /** Mean speed at the reference height, m/s. */
+  speed: number;
+  /** Direction the wind blows from, degrees clockwise from true north. */
+  from: number;
+  /** Peak gust speed at the reference height, m/s (optional). */
+  gust?: number;
+  /** Reference height above the pad, m. */
+  height: number;
+  /** Power-law exponent (used when there is no profile, and below the lowest profile row). */
+  shear: number;
+  /** Rows sorted by altitude above the pad. */
+  profile?: ProfileRow[];
+}
+
+export interface Weather {
+  wind: Wind;
+  /**
+   * Dryden turbulence on or off. Defaults to on when a gust is given, off otherwise, so that a
+   * scenario with no spreads and no gust flies the nominal flight in every sample.
+   */
+  turbulence: boolean;
+  /** Air temperature at the pad, K; absent means the standard atmosphere at the pad's elevation. */
+  temperature?: number;
+  /** Air pressure at the pad, Pa; absent means the standard atmosphere at the pad's elevation. */
+  pressure?: number;
+}
+
+export type UncertaintyName =
+  | 'wind.speed'
+  | 'wind.from'
+  | 'wind.gust'
+  | 'launch.tilt'
+  | 'launch.azimuth'
+  | 'launch.speed'
+  | 'launch.elevation'
+  | 'launch.height'
+  | 'motor.impulse'
+  | 'vehicle.mass'
+  | 'vehicle.drag'
+  | 'recovery.delay'
+  | 'recovery.rate';
+
+export const UNCERTAINTY_NAMES: readonly UncertaintyName[] = [
+  'wind.speed',
+  'wind.from',
+  'wind.gust',
+  'launch.tilt',
+  'launch.azimuth',
+  'launch.speed',
+  'launch.elevation',
+  'launch.height',
+  'motor.impulse',
+  'vehicle.mass',
+  'vehicle.drag',
+  'recovery.delay',
+  'recovery.rate',
+];
+
+/**
+ * A spread. `relative: true` means the numbers are fractions of the nominal value (the file said
+ * "8 %"); otherwise they are in the parameter's SI unit (degrees for angles).
+ */
+export type Spread =
+  | { kind: 'normal'; sd: number; relative: boolean; limit?: number }
+  | { kind: 'uniform'; lo: number; hi: number; relative: boolean };
+
+export interface FailureMode {
+  name: string;
+  probability: number;
+  effect: 'skip';
+  /** A recovery stage name, or "all". */
+  stage: string;
+}
+
+export interface KeepOut {
+  level: number;
+  /** m. */
+  margin: number;
+}
+
+export interface RunSettings {
+  samples: number;
+  seed: string;
+  levels: number[];
+  keepOut: KeepOut;
+}
+
+export type AreaKind = 'spectators' | 'parking' | 'road' | 'building' | 'water' | 'other';
+
+export interface PolygonGeometry {
+  type: 'Polygon';
+  coordinates: number[][][];
+}
+
+export interface Area {
+  name: string;
+  kind: AreaKind;
+  geometry: PolygonGeometry;
+  people?: number;
+}
+
+export interface Site {
+  pad: { lat: number; lon: number; elevation: number };
+  minimumDistance?: number;
+  boundary?: PolygonGeometry;
+  areas: Area[];
+  /** GeoJSON FeatureCollection, passed through untouched. */
+  basemap?: { type: 'FeatureCollection'; features: unknown[] };
+}
+
+export interface Scenario {
+  strewn: 1;
+  name: string;
+  notes?: string;
+  site: Site;
+  vehicle: Vehicle;
+  launch: Launch;
+  recovery: RecoveryStage[];
+  weather: Weather;
+  uncertainty: Partial<Record<UncertaintyName, Spread>>;
+  failures: FailureMode[];
+  run: RunSettings;
+}
+
+/** One input problem: the field path, the value given, and what was expected. */
+export interface Issue {
+  path: string;
+  message: string;
+}
