@@ -1,0 +1,44 @@
+/**
+ * One flight's inputs after its spreads were drawn: the values that differ between Monte-Carlo
+ * samples. Reused between samples (set in place), so the hot loop allocates nothing.
+ */
+export interface FlightInputs {
+  /** Mean wind speed at the reference height, m/s. */
+  windSpeed: number;
+  /** Angle added to every wind direction, deg. */
+  windTurn: number;
+  /** Dryden σ_w for this sample, m/s (0: no turbulence). */
+  sigmaW: number;
+  /** Rocket rail tilt from vertical and its azimuth, deg. */
+  tilt: number;
+  azimuth: number;
+  /** Projectile: speed (m/s), elevation (deg), azimuth (deg), height (m). Release: speed, heading, height. */
+  speed: number;
+  elevation: number;
+  heading: number;
+  height: number;
+  east: number;
+  north: number;
+  /** Multiplies the thrust curve (total impulse), 1 nominal. */
+  impulseScale: number;
+  /** Mass without propellant, kg. */
+  mass: number;
+  /** Multiplies the body drag coefficient, 1 nominal. */
+  cdScale: number;
+  /** Seconds added to every stage's delay (result clamped at 0). */
+  delayOffset: number;
+  /** Multiplies every stage's descent rate (drag area divided by its square), 1 nominal. */
+  rateFactor: number;
+  /** Per recovery stage: 1 when this sample's failure mode stops it deploying. */
+  skipStage: Uint8Array;
+}
+
+export function emptyInputs(stageCount: number): FlightInputs {
+  return {
+    windSpeed: 0, windTurn: 0, sigmaW: 0,
+    tilt: 0, azimuth: 0,
+    speed: 0, elevation: 0, heading: 0, height: 0, east: 0, north: 0,
+    impulseScale: 1, mass: 1, cdScale: 1, delayOffset: 0, rateFactor: 1,
+    skipStage: new Uint8Array(stageCount),
+  };
+}

@@ -1,0 +1,71 @@
+import type { Motor } from '../scenario/types.js';
+
+/**
+ * A solid motor from its thrust curve: thrust linear between curve points, zero after the last.
+ * Propellant mass falls in proportion to the impulse delivered so far, so the mass at burnout is
+ * the mass without propellant whatever the curve's shape.
+ *
+ * A sample may scale the total impulse (`setImpulseScale`): thrust scales, burn time stays.
+ */
+export class MotorModel {
+  readonly burnTime: number;
+  readonly nominalImpulse: number;
+  readonly propellantMass: number;
+  private readonly time: Float64Array;
+  private readonly thrust: Float64Array;
+  /** Impulse delivered up to each curve point, N s (nominal). */
+  private readonly impulse: Float64Array;
+  private scale = 1;
+  private hint = 0;
+
+  constructor(motor: Motor) {
+    this.time = Float64Array.from(motor.thrust.time);
+    this.thrust = Float64Array.from(motor.thrust.thrust);
+    this.impulse = new Float64Array(this.time.length);
+    for (let i = 1; i < this.time.length; i++) {
+      this.impulse[i] =
+        this.impulse[i - 1] + 0.5 * (this.thrust[i] + this.thrust[i - 1]) * (this.time[i] - this.time[i - 1]);
+    }
+    this.burnTime = this.time[this.time.length - 1];
+    this.nominalImpulse = this.impulse[this.impulse.length - 1];
+    this.propellantMass = motor.propellantMass;
+  }
+
+  setImpulseScale(scale: number): void {
+    this.scale = scale;
+  }
+
+  get totalImpulse(): number {
+    return this.nominalImpulse * this.scale;
+  }
+
+  /** Index i with time[i] <= t < time[i+1]; remembers the last answer since t mostly increases. */
+  private segment(t: number): number {
+    const time = this.time;
+    let i = this.hint;
+    if (i >= time.length - 1 || time[i] > t) i = 0;
+    while (i < time.length - 2 && time[i + 1] <= t) i++;
+    this.hint = i;
+    return i;
+  }
+
+  /** Thrust at time t after ignition, N. */
+  thrustAt(t: number): number {
+    if (!(t >= 0) || t >= this.burnTime) return 0;
+    const i = this.segment(t);
+    const f = (t - this.time[i]) / (this.time[i + 1] - this.time[i]);
+    return this.scale * (this.thrust[i] + f * (this.thrust[i + 1] - this.thrust[i]));
+  }
+
+  /** Propellant mass left at time t, kg. */
+  propellantAt(t: number): number {
+    if (!(t > 0)) return this.propellantMass;
+    if (t >= this.burnTime || this.nominalImpulse <= 0) return 0;
+    const i = this.segment(t);
+    const dt = t - this.time[i];
+    const f = dt / (this.time[i + 1] - this.time[i]);
+    const thrustNow = this.thrust[i] + f * (this.thrust[i + 1] - this.thrust[i]);
+    const delivered = this.impulse[i] + 0.5 * (this.thrust[i] + thrustNow) * dt;
+    return this.propellantMass * (1 - delivered / this.nominalImpulse);
+  }
+}
