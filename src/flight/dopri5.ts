@@ -154,6 +154,6 @@ export class Dopri5 {
   /** Step-size factor from an error norm (safety 0.9, limited to [0.2, 5]). */
   static factor(err: number): number {
     if (err === 0) return 5;
-    return Math.min(5, Math.max(0.2, 0.9 * Math.pow(err, -0.2)));
+    return Math.min(5, Math.max(0.2, 0.9 * Math.exp(-0.2 * Math.log(err))));
   }
 }

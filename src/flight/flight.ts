@@ -3,7 +3,7 @@ import { G0 } from '../physics/constants.js';
 import { AirModel, type Air } from '../physics/air.js';
 import { MeanWind } from '../physics/wind.js';
 import { GustField } from '../physics/gust-field.js';
-import { DragCurve } from '../physics/drag.js';
+import { DragCurve, addDragAcceleration } from '../physics/drag.js';
 import { MotorModel } from '../physics/motor.js';
 import { Dopri5, type OdeSystem } from './dopri5.js';
 import type { FlightInputs } from './inputs.js';
@@ -113,6 +113,7 @@ export class FlightModel implements OdeSystem {
   private activeStage = -1;
 
   private readonly w = new Float64Array(3);
+  private readonly acc = new Float64Array(3);
   private readonly probe = new Float64Array(6);
 
   constructor(scenario: Scenario, options: Partial<FlightOptions> = {}) {
@@ -153,11 +154,6 @@ export class FlightModel implements OdeSystem {
     return this.solver.evaluations;
   }
 
-  /** Mass at time t, kg. */
-  private massAt(t: number): number {
-    return this.motor === null ? this.dryMass : this.dryMass + this.motor.propellantAt(t);
-  }
-
   derivative(t: number, y: Float64Array, dy: Float64Array): void {
     const z = y[2];
     const w = this.w;
@@ -168,7 +164,13 @@ export class FlightModel implements OdeSystem {
     const vy = y[4] - w[1];
     const vz = y[5] - w[2];
     const speed = Math.sqrt(vx * vx + vy * vy + vz * vz);
-    const mass = this.massAt(t);
+    let mass = this.dryMass;
+    let thrust = 0;
+    if (this.motor !== null) {
+      this.motor.evaluate(t);
+      mass += this.motor.propellantNow;
+      thrust = this.motor.thrustNow;
+    }
     const rho = this.air.densityAt(z);
     let cda: number;
     if (this.activeDragArea > 0) {
@@ -177,26 +179,27 @@ export class FlightModel implements OdeSystem {
       const mach = speed / this.air.speedOfSoundAt(z);
       cda = this.cdScale * this.dragCurve.at(mach) * this.referenceArea;
     }
-    // Vector drag: the magnitude |v_rel| multiplies the whole air-relative vector.
-    const k = (rho * cda * speed) / (2 * mass);
-    let ax = -k * vx;
-    let ay = -k * vy;
-    let az = -k * vz - G0;
-    if (this.motor !== null) {
-      const thrust = this.motor.thrustAt(t);
-      if (thrust > 0) {
-        const f = thrust / mass;
-        if (this.onRail || speed < 1e-9) {
-          ax += f * this.railX;
-          ay += f * this.railY;
-          az += f * this.railZ;
-        } else {
-          // Off the rail the vehicle weathercocks: thrust points along the air-relative velocity.
-          const g = f / speed;
-          ax += g * vx;
-          ay += g * vy;
-          az += g * vz;
-        }
+    // Vector drag on the air-relative velocity (see physics/drag.ts), written into dy[3..5].
+    const acc = this.acc;
+    acc[0] = 0;
+    acc[1] = 0;
+    acc[2] = -G0;
+    addDragAcceleration((rho * cda) / (2 * mass), vx, vy, vz, acc, 0);
+    let ax = acc[0];
+    let ay = acc[1];
+    let az = acc[2];
+    if (thrust > 0) {
+      const f = thrust / mass;
+      if (this.onRail || speed < 1e-9) {
+        ax += f * this.railX;
+        ay += f * this.railY;
+        az += f * this.railZ;
+      } else {
+        // Off the rail the vehicle weathercocks: thrust points along the air-relative velocity.
+        const g = f / speed;
+        ax += g * vx;
+        ay += g * vy;
+        az += g * vz;
       }
     }
     if (this.onRail) {

@@ -10,6 +10,10 @@ import { GAMMA, R_AIR } from './constants.js';
  * tabulated once per scenario on a fine grid (linear interpolation; relative error below 1e-6 at a
  * 10 m spacing, since the density scale height is about 8 km).
  */
+const STEP = 10;
+const INV_STEP = 1 / STEP;
+const SPAN = 60_000;
+
 /** What the equations of motion need from the air. */
 export interface Air {
   /** Density (kg/m³) at a height above the pad (m). */
@@ -20,9 +24,9 @@ export interface Air {
 
 export class AirModel implements Air {
   /** Grid spacing of the table, m. */
-  static readonly STEP = 10;
+  static readonly STEP = STEP;
   /** Table height above the pad, m. */
-  static readonly SPAN = 60_000;
+  static readonly SPAN = SPAN;
 
   readonly padElevation: number;
   readonly padTemperature: number;
@@ -38,13 +42,13 @@ export class AirModel implements Air {
     this.padPressure = pressure ?? std.pressure;
     const dT = this.padTemperature - std.temperature;
     const pScale = this.padPressure / std.pressure;
-    const n = Math.floor(AirModel.SPAN / AirModel.STEP) + 1;
+    const n = Math.floor(SPAN / STEP) + 1;
     this.density = new Float64Array(n);
     this.sound = new Float64Array(n);
     this.last = n - 1;
     const s = emptyAirState();
     for (let i = 0; i < n; i++) {
-      standardAtmosphere(geopotentialAltitude(padElevation + i * AirModel.STEP), s);
+      standardAtmosphere(geopotentialAltitude(padElevation + i * STEP), s);
       const t = s.temperature + dT;
       const p = s.pressure * pScale;
       this.density[i] = p / (R_AIR * t);
@@ -64,7 +68,7 @@ export class AirModel implements Air {
 }
 
 function interpolate(table: Float64Array, height: number, last: number): number {
-  const x = height / AirModel.STEP;
+  const x = height * INV_STEP;
   if (!(x > 0)) return table[0];
   if (x >= last) return table[last];
   const i = x | 0;

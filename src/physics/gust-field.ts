@@ -12,15 +12,26 @@ import { drydenAt, markovStep } from './dryden.js';
  * Nodes are generated lazily from the ground up, only as high as the flight goes, from the sample's
  * own random stream. Buffers are reused between samples; they only grow.
  */
-export class GustField {
-  /** Node spacing, m: finer than the smallest vertical scale length that matters (L_w = h). */
-  static readonly STEP = 2;
+const STEP = 10;
+const INV_STEP = 1 / STEP;
 
-  /** Per-height tables shared by every sample of a scenario. */
+export class GustField {
+  /**
+   * Node spacing, m. The field between nodes is a cubic B-spline of the node values: C², so the
+   * adaptive integrator takes smooth steps through it instead of stopping at every kink of a
+   * piecewise-linear path. Scales shorter than a few node spacings (the vertical component within
+   * a few metres of the ground) are smoothed away; they average out over a descent anyway.
+   */
+  static readonly STEP = STEP;
+
+  /** Per-node tables shared by every sample of a scenario. Node k sits at height (k − 1)·STEP. */
   private readonly ratioU: Float64Array;
   private readonly phiU: Float64Array;
   private readonly phiW: Float64Array;
-  private readonly tableLast: number;
+  /** Restores the unit variance the spline's averaging of neighbouring nodes takes away. */
+  private readonly gainU: Float64Array;
+  private readonly gainW: Float64Array;
+  private readonly nodeLast: number;
 
   private east = new Float64Array(1024);
   private north = new Float64Array(1024);
@@ -30,17 +41,21 @@ export class GustField {
   private normal: () => number = () => 0;
 
   constructor(topHeight = 60_000) {
-    const n = Math.ceil(topHeight / GustField.STEP) + 2;
+    const n = Math.ceil(topHeight / STEP) + 4;
     this.ratioU = new Float64Array(n);
     this.phiU = new Float64Array(n);
     this.phiW = new Float64Array(n);
-    this.tableLast = n - 1;
+    this.gainU = new Float64Array(n);
+    this.gainW = new Float64Array(n);
+    this.nodeLast = n - 1;
     const p = { sigmaRatioU: 1, lengthU: 0, lengthW: 0 };
-    for (let i = 0; i < n; i++) {
-      drydenAt(i * GustField.STEP, p);
-      this.ratioU[i] = p.sigmaRatioU;
-      this.phiU[i] = Math.exp(-GustField.STEP / p.lengthU);
-      this.phiW[i] = Math.exp(-GustField.STEP / p.lengthW);
+    for (let k = 0; k < n; k++) {
+      drydenAt(Math.max(0, (k - 1) * STEP), p);
+      this.ratioU[k] = p.sigmaRatioU;
+      this.phiU[k] = Math.exp(-STEP / p.lengthU);
+      this.phiW[k] = Math.exp(-STEP / p.lengthW);
+      this.gainU[k] = splineGain(this.phiU[k]);
+      this.gainW[k] = splineGain(this.phiW[k]);
     }
   }
 
@@ -58,38 +73,52 @@ export class GustField {
   /** Adds the gust at `height` (m above ground) to out[0..2] (east, north, up). */
   addAt(height: number, out: Float64Array): void {
     if (this.sigmaW <= 0) return;
-    let x = height / GustField.STEP;
+    let x = height * INV_STEP;
     if (!(x > 0)) x = 0;
-    if (x >= this.tableLast) x = this.tableLast - 1e-9;
-    const i = x | 0;
-    if (i + 1 >= this.generated) this.generate(i + 2);
+    if (x > this.nodeLast - 3) x = this.nodeLast - 3;
+    const i = x | 0; // spline segment: nodes i .. i + 3 (heights (i − 1)·STEP .. (i + 2)·STEP)
+    if (i + 4 > this.generated) this.generate(i + 4);
     const f = x - i;
+    const f2 = f * f;
+    const f3 = f2 * f;
+    const g = 1 - f;
+    const b0 = (g * g * g) / 6;
+    const b1 = (3 * f3 - 6 * f2 + 4) / 6;
+    const b2 = (-3 * f3 + 3 * f2 + 3 * f + 1) / 6;
+    const b3 = f3 / 6;
     const s = this.sigmaW;
-    out[0] += s * (this.east[i] + f * (this.east[i + 1] - this.east[i]));
-    out[1] += s * (this.north[i] + f * (this.north[i + 1] - this.north[i]));
-    out[2] += s * (this.vert[i] + f * (this.vert[i + 1] - this.vert[i]));
+    const e = this.east, n = this.north, v = this.vert;
+    out[0] += s * (b0 * e[i] + b1 * e[i + 1] + b2 * e[i + 2] + b3 * e[i + 3]);
+    out[1] += s * (b0 * n[i] + b1 * n[i + 1] + b2 * n[i + 2] + b3 * n[i + 3]);
+    out[2] += s * (b0 * v[i] + b1 * v[i + 1] + b2 * v[i + 2] + b3 * v[i + 3]);
   }
 
-  /** Generates nodes up to (not including) index `upto`. Values are stored already scaled by σ_u/σ_w. */
+  /**
+   * Generates nodes up to (not including) index `upto`: unit Gauss–Markov processes along height,
+   * stored multiplied by the local σ ratio and spline gain.
+   */
   private generate(upto: number): void {
     if (upto > this.east.length) this.grow(upto);
     const normal = this.normal;
     let k = this.generated;
     if (k === 0) {
-      this.east[0] = this.ratioU[0] * normal();
-      this.north[0] = this.ratioU[0] * normal();
-      this.vert[0] = normal();
+      this.east[0] = this.scaleU(0) * normal();
+      this.north[0] = this.scaleU(0) * normal();
+      this.vert[0] = this.gainW[0] * normal();
       k = 1;
     }
     for (; k < upto; k++) {
-      const r0 = this.ratioU[k - 1];
-      const r1 = this.ratioU[k];
-      // Step the unit process, stored scaled: divide the previous node back to unit variance.
-      this.east[k] = r1 * markovStep(this.east[k - 1] / r0, this.phiU[k - 1], normal());
-      this.north[k] = r1 * markovStep(this.north[k - 1] / r0, this.phiU[k - 1], normal());
-      this.vert[k] = markovStep(this.vert[k - 1], this.phiW[k - 1], normal());
+      const back = 1 / this.scaleU(k - 1);
+      const here = this.scaleU(k);
+      this.east[k] = here * markovStep(this.east[k - 1] * back, this.phiU[k - 1], normal());
+      this.north[k] = here * markovStep(this.north[k - 1] * back, this.phiU[k - 1], normal());
+      this.vert[k] = this.gainW[k] * markovStep(this.vert[k - 1] / this.gainW[k - 1], this.phiW[k - 1], normal());
     }
     this.generated = upto;
+  }
+
+  private scaleU(k: number): number {
+    return this.ratioU[k] * this.gainU[k];
   }
 
   private grow(minimum: number): void {
@@ -104,4 +133,12 @@ export class GustField {
     this.north = n;
     this.vert = v;
   }
+}
+
+/**
+ * 1 / standard deviation of a cubic B-spline at a node, for unit-variance node values with
+ * neighbour correlation φ: the weights (1, 4, 1)/6 give variance (18 + 16φ + 2φ²)/36.
+ */
+function splineGain(phi: number): number {
+  return 1 / Math.sqrt((18 + 16 * phi + 2 * phi * phi) / 36);
 }

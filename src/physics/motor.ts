@@ -57,6 +57,34 @@ export class MotorModel {
     return this.scale * (this.thrust[i] + f * (this.thrust[i + 1] - this.thrust[i]));
   }
 
+  /**
+   * Thrust (N) and propellant left (kg) at time t, in one search of the curve: the equations of
+   * motion need both at every evaluation. Results in `thrust` and `propellant`.
+   */
+  evaluate(t: number): void {
+    if (!(t > 0)) {
+      this.thrustNow = t === 0 ? this.scale * this.thrust[0] : 0;
+      this.propellantNow = this.propellantMass;
+      return;
+    }
+    if (t >= this.burnTime || this.nominalImpulse <= 0) {
+      this.thrustNow = 0;
+      this.propellantNow = 0;
+      return;
+    }
+    const i = this.segment(t);
+    const dt = t - this.time[i];
+    const f = dt / (this.time[i + 1] - this.time[i]);
+    const nominal = this.thrust[i] + f * (this.thrust[i + 1] - this.thrust[i]);
+    this.thrustNow = this.scale * nominal;
+    const delivered = this.impulse[i] + 0.5 * (this.thrust[i] + nominal) * dt;
+    this.propellantNow = this.propellantMass * (1 - delivered / this.nominalImpulse);
+  }
+
+  /** Results of the last `evaluate`. */
+  thrustNow = 0;
+  propellantNow = 0;
+
   /** Propellant mass left at time t, kg. */
   propellantAt(t: number): number {
     if (!(t > 0)) return this.propellantMass;
