@@ -27,8 +27,8 @@ export interface FlightOptions {
 
 export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
   rtol: 1e-6,
-  atolPosition: 1e-3,
-  atolVelocity: 1e-3,
+  atolPosition: 1e-4,
+  atolVelocity: 1e-4,
   maxTime: 3600,
   maxSteps: 200_000,
   minStep: 1e-9,
