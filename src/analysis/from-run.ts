@@ -1,0 +1,50 @@
+import type { RunResult } from '../dispersion/results.js';
+import { sampleWeights } from '../dispersion/results.js';
+import type { Scenario } from '../scenario/types.js';
+import type { LandingSet } from './types.js';
+
+/**
+ * The landed samples of a run as the analysis reads them. Failed samples are left out here (and
+ * counted in the summary); the landed samples of each mode carry that mode's probability.
+ */
+export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSet {
+  const weights = sampleWeights(run);
+  let landed = 0;
+  for (let i = 0; i < run.count; i++) if (run.status[i] === 0) landed++;
+  const set: Required<LandingSet> = {
+    east: new Float64Array(landed),
+    north: new Float64Array(landed),
+    weight: new Float64Array(landed),
+    mode: new Uint8Array(landed),
+    modeNames: run.plan.names,
+    modeProbability: Array.from(run.plan.probability),
+    modeCarriesParachute: modesWithParachute(run, scenario),
+    sample: new Uint32Array(landed),
+    apogee: new Float64Array(landed),
+    flightTime: new Float64Array(landed),
+    impactSpeed: new Float64Array(landed),
+  };
+  let j = 0;
+  for (let i = 0; i < run.count; i++) {
+    if (run.status[i] !== 0) continue;
+    set.east[j] = run.east[i];
+    set.north[j] = run.north[i];
+    set.weight[j] = weights[i];
+    set.mode[j] = run.mode[i];
+    set.sample[j] = i;
+    set.apogee[j] = run.apogee[i];
+    set.flightTime[j] = run.flightTime[i];
+    set.impactSpeed[j] = run.impactSpeed[i];
+    j++;
+  }
+  return set;
+}
+
+/** A mode comes down under a canopy when at least one recovery stage still deploys in it. */
+function modesWithParachute(run: RunResult, scenario: Scenario): boolean[] {
+  const stages = scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery.map((s) => s.name);
+  return run.plan.stops.map((stop) => {
+    if (stages.length === 0 || stop === 'all') return false;
+    return stages.some((name) => name !== stop);
+  });
+}

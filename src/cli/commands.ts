@@ -1,0 +1,30 @@
+import { runCommand, RUN_HELP } from './run.js';
+import { checkCommand, CHECK_HELP } from './check.js';
+
+export interface Command {
+  summary: string;
+  help: string;
+  run(args: string[]): Promise<number>;
+}
+
+export const COMMANDS: Record<string, Command> = {
+  run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', help: RUN_HELP, run: runCommand },
+  check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', help: CHECK_HELP, run: checkCommand },
+};
+
+export function mainHelp(): string {
+  const lines = [
+    'strewn: where things that go up will come down (Monte-Carlo landing dispersion)',
+    '',
+    'Usage: strewn <command> [options]',
+    '',
+    'Commands:',
+    ...Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)}${c.summary}`),
+    '',
+    'Options:',
+    '  --help       help for strewn, or for a command (strewn run --help)',
+    '  --version    print the version',
+    '',
+  ];
+  return lines.join('\n');
+}

@@ -1,0 +1,37 @@
+import type { LandingSet } from '../analysis/types.js';
+import type { LocalFrame } from '../analysis/geodesy.js';
+import { csvField } from '../analysis/areasCsv.js';
+
+/** Column header of landings.csv (the scenario format document fixes it). */
+export const LANDINGS_HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s';
+
+const ROWS_PER_PIECE = 10_000;
+
+/**
+ * landings.csv in pieces: one row per landed sample, sorted by sample, numbers at fixed precision
+ * so the same run gives the same bytes on any machine (millimetres; 1e-8 degrees ≈ 1 mm).
+ *
+ * @example
+ *   for (const piece of landingsCsvChunks(set, frame)) stream.write(piece);
+ */
+export function* landingsCsvChunks(set: LandingSet, frame: LocalFrame): Generator<string> {
+  const names = set.modeNames.map((n) => csvField(n));
+  yield LANDINGS_HEADER + '\n';
+  for (let from = 0; from < set.east.length; from += ROWS_PER_PIECE) {
+    const to = Math.min(set.east.length, from + ROWS_PER_PIECE);
+    let piece = '';
+    for (let i = from; i < to; i++) {
+      const [lon, lat] = frame.toLonLat(set.east[i], set.north[i]);
+      piece +=
+        `${set.sample ? set.sample[i] : i},${names[set.mode[i]]},${set.east[i].toFixed(3)},${set.north[i].toFixed(3)},` +
+        `${lat.toFixed(8)},${lon.toFixed(8)},${set.apogee ? set.apogee[i].toFixed(2) : ''},` +
+        `${set.flightTime ? set.flightTime[i].toFixed(3) : ''},${set.impactSpeed ? set.impactSpeed[i].toFixed(3) : ''}\n`;
+    }
+    yield piece;
+  }
+}
+
+/** landings.csv as one string. */
+export function writeLandingsCsv(set: LandingSet, frame: LocalFrame): string {
+  return Array.from(landingsCsvChunks(set, frame)).join('');
+}

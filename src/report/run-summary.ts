@@ -1,0 +1,110 @@
+import type { RunResult } from '../dispersion/results.js';
+import { sampleWeights } from '../dispersion/results.js';
+import type { AnalysisResult } from '../analysis/index.js';
+import { summaryParts, type SummaryParts } from '../analysis/summary.js';
+import { weightedQuantile } from '../analysis/weightedStats.js';
+import { FAILURE_REASONS } from '../flight/status.js';
+import type { Issue, Scenario } from '../scenario/types.js';
+import { VERSION } from '../version.js';
+import { CAUTION } from './caution.js';
+
+export interface Spread5 {
+  mean: number;
+  p05: number;
+  p50: number;
+  p95: number;
+  max: number;
+}
+
+/** summary.json: what a run did and found (the scenario format document lists the required keys). */
+export interface RunSummary extends SummaryParts {
+  name: string;
+  samples: number;
+  failedSamples: number;
+  failures: { reason: string; samples: number }[];
+  seed: string;
+  scenarioHash: string;
+  version: string;
+  apogee_m: Spread5;
+  flightTime_s: Spread5;
+  farthestLanding: { distance_m: number; bearing_deg: number; sample: number; mode: string } | null;
+  modes: { name: string; probability: number; samples: number; landed: number }[];
+  scenarioWarnings: string[];
+  caution: string;
+}
+
+function round(x: number, decimals: number): number {
+  const f = 10 ** decimals;
+  return Math.round(x * f) / f;
+}
+
+/** Weighted mean, 5th/50th/95th percentiles and maximum over landed samples. */
+function spread(values: Float64Array, weights: Float64Array, landed: Uint8Array): Spread5 {
+  const v: number[] = [];
+  const w: number[] = [];
+  for (let i = 0; i < values.length; i++) if (landed[i] === 0) { v.push(values[i]); w.push(weights[i]); }
+  if (v.length === 0) return { mean: NaN, p05: NaN, p50: NaN, p95: NaN, max: NaN };
+  const vv = Float64Array.from(v);
+  const ww = Float64Array.from(w);
+  let total = 0, first = 0, max = -Infinity;
+  for (let i = 0; i < vv.length; i++) { total += ww[i]; first += ww[i] * vv[i]; if (vv[i] > max) max = vv[i]; }
+  return {
+    mean: round(first / total, 2),
+    p05: round(weightedQuantile(vv, ww, 0.05), 2),
+    p50: round(weightedQuantile(vv, ww, 0.5), 2),
+    p95: round(weightedQuantile(vv, ww, 0.95), 2),
+    max: round(max, 2),
+  };
+}
+
+export function buildRunSummary(
+  scenario: Scenario,
+  hash: string,
+  run: RunResult,
+  analysis: AnalysisResult | null,
+  warnings: Issue[],
+): RunSummary {
+  const weights = sampleWeights(run);
+  const failures = new Map<number, number>();
+  let farthest: RunSummary['farthestLanding'] = null;
+  const landed = new Int32Array(run.plan.names.length);
+  for (let i = 0; i < run.count; i++) {
+    const s = run.status[i];
+    if (s !== 0) {
+      failures.set(s, (failures.get(s) ?? 0) + 1);
+      continue;
+    }
+    landed[run.mode[i]]++;
+    const d = Math.hypot(run.east[i], run.north[i]);
+    if (farthest === null || d > farthest.distance_m) {
+      const bearing = (Math.atan2(run.east[i], run.north[i]) * 180) / Math.PI;
+      farthest = { distance_m: d, bearing_deg: (bearing + 360) % 360, sample: i, mode: run.plan.names[run.mode[i]] };
+    }
+  }
+  if (farthest) farthest = { ...farthest, distance_m: round(farthest.distance_m, 2), bearing_deg: round(farthest.bearing_deg, 1) };
+  const failedSamples = [...failures.values()].reduce((a, b) => a + b, 0);
+  const parts: SummaryParts = analysis
+    ? summaryParts(analysis)
+    : { contours: [], keepOut: { level: scenario.run.keepOut.level, margin_m: scenario.run.keepOut.margin, area_m2: NaN, maxDistance_m: NaN, outsideShare: NaN, outsideUpper95: NaN }, areas: [], warnings: [] };
+  return {
+    name: scenario.name,
+    samples: run.count,
+    failedSamples,
+    failures: [...failures.entries()].sort((a, b) => a[0] - b[0]).map(([code, n]) => ({ reason: FAILURE_REASONS[code] ?? `code ${code}`, samples: n })),
+    seed: run.seed,
+    scenarioHash: hash,
+    version: VERSION,
+    apogee_m: spread(run.apogee, weights, run.status),
+    flightTime_s: spread(run.flightTime, weights, run.status),
+    farthestLanding: farthest,
+    modes: run.plan.names.map((name, m) => ({
+      name,
+      probability: run.plan.probability[m],
+      samples: run.plan.counts[m],
+      landed: landed[m],
+    })),
+    ...parts,
+    scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
+    caution: CAUTION,
+  };
+}

@@ -1,0 +1,2 @@
+/** Program version, written on every result. A test keeps it equal to package.json's. */
+export const VERSION = '0.1.0';
