@@ -27,8 +27,8 @@ export interface FlightOptions {
 
 export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
   rtol: 1e-6,
-  atolPosition: 1e-4,
-  atolVelocity: 1e-4,
+  atolPosition: 1e-2,
+  atolVelocity: 1e-3,
   maxTime: 3600,
   maxSteps: 200_000,
   minStep: 1e-9,
@@ -83,6 +83,8 @@ export class FlightModel implements OdeSystem {
   private readonly scenario: Scenario;
   private readonly dragCurve: DragCurve;
   private readonly motor: MotorModel | null;
+  /** Step onto every thrust-curve point (short curves); long curves rely on error control alone. */
+  private readonly stopAtKnots: boolean;
   private readonly referenceArea: number;
   private readonly options: FlightOptions;
   private readonly solver = new Dopri5(6);
@@ -125,6 +127,7 @@ export class FlightModel implements OdeSystem {
     this.gusts = new GustField();
     this.dragCurve = new DragCurve(scenario.vehicle.drag);
     this.motor = scenario.vehicle.kind === 'rocket' && scenario.vehicle.motor ? new MotorModel(scenario.vehicle.motor) : null;
+    this.stopAtKnots = this.motor !== null && this.motor.knots <= 256;
     this.referenceArea = scenario.vehicle.referenceArea;
     const stages = scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery;
     const n = stages.length;
@@ -301,7 +304,7 @@ export class FlightModel implements OdeSystem {
       if (steps >= opts.maxSteps) return this.fail(out, FlightStatus.MAX_STEPS, t, steps);
       // The next moment something happens on the clock: burnout, a timed deployment, the time limit.
       let tNext = opts.maxTime;
-      if (burning && burnTime < tNext) tNext = burnTime;
+      if (burning) tNext = Math.min(tNext, this.stopAtKnots ? this.motor!.nextKnotAfter(t) : burnTime);
       for (let i = 0; i < this.stageCount; i++) {
         if (this.deployed[i] === 0 && this.skip[i] === 0 && this.deployAt[i] < tNext) tNext = this.deployAt[i];
       }
@@ -315,9 +318,10 @@ export class FlightModel implements OdeSystem {
         if (hitsClock) {
           // Already at the clock event (within rounding): handle it without stepping.
           t = tNext;
-          const ended = this.clockEvent(t, out, steps);
-          if (ended) return out;
-          burning = burning && t < burnTime;
+          if (this.isDiscontinuity(t, burning, burnTime)) {
+            if (this.clockEvent(t, out, steps)) return out;
+            burning = burning && t < burnTime;
+          }
           continue;
         }
         return this.fail(out, FlightStatus.STEP_UNDERFLOW, t, steps);
@@ -378,9 +382,8 @@ export class FlightModel implements OdeSystem {
         t = tNew;
         if (y[2] > out.apogee) out.apogee = y[2];
         if (track !== null) track(t, y);
-        if (hitsClock) {
-          const ended = this.clockEvent(t, out, steps);
-          if (ended) return out;
+        if (hitsClock && this.isDiscontinuity(t, burning, burnTime)) {
+          if (this.clockEvent(t, out, steps)) return out;
           burning = burning && t < burnTime;
           h = Math.min(h, 0.05);
         }
@@ -426,6 +429,18 @@ export class FlightModel implements OdeSystem {
       solver.reset(ye);
       h = Math.min(h, 0.05);
     }
+  }
+
+  /**
+   * Whether a clock stop at t is more than a thrust-curve point (where the derivative is continuous
+   * and the stepper carries on as it was): burnout, a timed deployment, or the time limit.
+   */
+  private isDiscontinuity(t: number, burning: boolean, burnTime: number): boolean {
+    if (t >= this.options.maxTime || (burning && t >= burnTime)) return true;
+    for (let i = 0; i < this.stageCount; i++) {
+      if (this.deployed[i] === 0 && this.skip[i] === 0 && this.deployAt[i] <= t) return true;
+    }
+    return false;
   }
 
   /** Handles burnout, timed deployments and the time limit at time t. Returns true when the flight ended. */

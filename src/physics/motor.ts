@@ -31,6 +31,23 @@ export class MotorModel {
     this.propellantMass = motor.propellantMass;
   }
 
+  /**
+   * The first curve point strictly after t (the burn time when none is left). Thrust is linear
+   * between points, so its slope jumps at each one; an integrator that steps exactly onto them
+   * keeps its full order through the burn.
+   */
+  nextKnotAfter(t: number): number {
+    const time = this.time;
+    const i = this.segment(t);
+    for (let k = i; k < time.length; k++) if (time[k] > t) return time[k];
+    return this.burnTime;
+  }
+
+  /** Number of points on the curve. */
+  get knots(): number {
+    return this.time.length;
+  }
+
   setImpulseScale(scale: number): void {
     this.scale = scale;
   }

@@ -112,6 +112,13 @@ export interface Weather {
   pressure?: number;
 }
 
+/**
+ * Parameters a spread may vary. Absolute spreads are in the parameter's SI unit: m/s for the wind
+ * and launch speeds, degrees for directions and angles, m for launch.height, N s for motor.impulse
+ * (of the whole curve), kg for vehicle.mass, a plain Cd for vehicle.drag, s for recovery.delay.
+ * recovery.rate is always relative (it scales every stage's drag area); wind.from and
+ * launch.azimuth are never relative. For a release, launch.azimuth varies the heading.
+ */
 export type UncertaintyName =
   | 'wind.speed'
   | 'wind.from'

@@ -1,0 +1,38 @@
+/**
+ * areas.csv: one row per site area (RFC 4180 quoting: fields with a comma, quote or line break are
+ * quoted, quotes doubled).
+ *
+ * @example
+ *   writeAreasCsv(result.areas)
+ *   // name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note
+ */
+import type { AreaResult } from './areas.js';
+
+export function csvField(value: string | number | boolean | undefined | null): string {
+  if (value === undefined || value === null) return '';
+  const text = String(value);
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+export const AREAS_CSV_HEADER =
+  'name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note';
+
+export function writeAreasCsv(areas: AreaResult[]): string {
+  const rows = areas.map((a) =>
+    [
+      a.name,
+      a.kind,
+      a.hits,
+      a.probability.toPrecision(6),
+      a.upper95.toPrecision(6),
+      a.intersectsKeepOut,
+      a.area_m2.toFixed(1),
+      a.people,
+      a.expectedCasualties === undefined ? undefined : a.expectedCasualties.toPrecision(3),
+      a.note,
+    ]
+      .map(csvField)
+      .join(','),
+  );
+  return [AREAS_CSV_HEADER, ...rows].join('\n') + '\n';
+}

@@ -1,0 +1,195 @@
+import { convertQuantity } from './units.js';
+import type { Issue, UncertaintyName, VehicleKind } from './types.js';
+
+/**
+ * Checks that involve more than one field. They read the raw JSON and look only at what is
+ * present and readable, so they still run (and report) when other parts of the file are broken;
+ * values that cannot be read are left to the schema, which reports them once.
+ */
+export function crossCheck(raw: Record<string, unknown>, kind: VehicleKind | undefined): Issue[] {
+  const stageNames = recoveryStageNames(raw.recovery);
+  return [
+    ...referenceAreaChecks(raw.vehicle),
+    ...recoveryChecks(raw.recovery, kind),
+    ...failureChecks(raw.failures, stageNames, Array.isArray(raw.recovery) && raw.recovery.length > 0),
+    ...gustChecks(raw.weather),
+    ...profileChecks(raw.weather),
+    ...uncertaintyChecks(raw, kind),
+  ];
+}
+
+export function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+/** The file gives the reference size one way: a diameter or an area. */
+function referenceAreaChecks(vehicle: unknown): Issue[] {
+  if (!isRecord(vehicle)) return [];
+  const hasDiameter = vehicle.diameter !== undefined;
+  const hasArea = vehicle.referenceArea !== undefined;
+  if (hasDiameter && hasArea) {
+    return [{ path: 'vehicle.referenceArea', message: 'give either diameter or referenceArea, not both' }];
+  }
+  if (!hasDiameter && !hasArea) {
+    return [{ path: 'vehicle.diameter', message: 'missing (required); give either diameter or referenceArea' }];
+  }
+  return [];
+}
+
+function recoveryChecks(recovery: unknown, kind: VehicleKind | undefined): Issue[] {
+  if (recovery === undefined) return [];
+  if (kind === 'projectile') {
+    return [{ path: 'recovery', message: "a projectile has no recovery stages; remove 'recovery' or change vehicle.kind" }];
+  }
+  if (!Array.isArray(recovery)) return [];
+  const issues: Issue[] = [];
+  const firstIndexOfName = new Map<string, number>();
+  recovery.forEach((stage: unknown, i) => {
+    if (!isRecord(stage)) return;
+    const at = (field: string): string => `recovery[${i}].${field}`;
+    issues.push(...triggerFieldChecks(stage, at));
+
+    const hasArea = stage.dragArea !== undefined;
+    const hasRate = stage.descentRate !== undefined;
+    if (hasArea && hasRate) issues.push({ path: at('descentRate'), message: 'give either dragArea or descentRate, not both' });
+    if (!hasArea && !hasRate) {
+      issues.push({ path: at('dragArea'), message: 'missing (required); give either dragArea (Cd·A) or descentRate' });
+    }
+
+    if (typeof stage.name === 'string') {
+      // Failure modes name stages, and "all" means every stage, so names must be unambiguous.
+      if (stage.name === 'all') issues.push({ path: at('name'), message: "'all' is reserved for failures that affect every stage; choose another name" });
+      const earlier = firstIndexOfName.get(stage.name);
+      if (earlier !== undefined) {
+        issues.push({ path: at('name'), message: `'${stage.name}' is already the name of recovery[${earlier}]; stage names must be unique` });
+      } else {
+        firstIndexOfName.set(stage.name, i);
+      }
+    }
+  });
+  return issues;
+}
+
+/** Trigger "altitude" needs `altitude`, "time" needs `time`; either field with another trigger is a mistake. */
+function triggerFieldChecks(stage: Record<string, unknown>, at: (field: string) => string): Issue[] {
+  const trigger = stage.trigger;
+  if (trigger !== 'apogee' && trigger !== 'altitude' && trigger !== 'time') return [];
+  const issues: Issue[] = [];
+  const needs: Record<'altitude' | 'time', string> = {
+    altitude: 'the height above the pad, met on the way down, at which the stage deploys',
+    time: 'the time after launch at which the stage deploys',
+  };
+  for (const field of ['altitude', 'time'] as const) {
+    const present = stage[field] !== undefined;
+    if (trigger === field && !present) issues.push({ path: at(field), message: `missing (required) for trigger '${field}'; expected ${needs[field]}` });
+    if (trigger !== field && present) issues.push({ path: at(field), message: `is used only with trigger '${field}', but this stage's trigger is '${trigger}'` });
+  }
+  return issues;
+}
+
+function recoveryStageNames(recovery: unknown): string[] {
+  if (!Array.isArray(recovery)) return [];
+  return recovery.flatMap((stage: unknown) => (isRecord(stage) && typeof stage.name === 'string' ? [stage.name] : []));
+}
+
+function failureChecks(failures: unknown, stageNames: string[], hasStages: boolean): Issue[] {
+  if (!Array.isArray(failures)) return [];
+  const issues: Issue[] = [];
+  const seen = new Map<string, number>();
+  let total = 0;
+  let allReadable = true;
+  failures.forEach((failure: unknown, i) => {
+    if (!isRecord(failure)) {
+      allReadable = false;
+      return;
+    }
+    const stage = failure.stage;
+    if (typeof stage === 'string' && stage !== '') {
+      if (!hasStages) {
+        issues.push({ path: `failures[${i}].stage`, message: `'${stage}' cannot fail: the scenario has no recovery stages` });
+      } else if (stage !== 'all' && !stageNames.includes(stage)) {
+        const choices = [...stageNames, 'all'].map((n) => `'${n}'`).join(', ');
+        issues.push({ path: `failures[${i}].stage`, message: `'${stage}' is not a recovery stage; expected one of ${choices}` });
+      }
+    }
+    if (typeof failure.name === 'string') {
+      // The samples outside every failure mode form the mode "nominal".
+      if (failure.name === 'nominal') issues.push({ path: `failures[${i}].name`, message: "'nominal' is the name of the samples without a failure; choose another name" });
+      const earlier = seen.get(failure.name);
+      if (earlier !== undefined) issues.push({ path: `failures[${i}].name`, message: `'${failure.name}' is already the name of failures[${earlier}]; names must be unique` });
+      else seen.set(failure.name, i);
+    }
+    const p = convertQuantity(failure.probability, 'fraction');
+    if (p.ok) total += p.value;
+    else allReadable = false;
+  });
+  // A small tolerance so that 0.1 + 0.2 + 0.7 (which sums to 1.0000000000000002) passes.
+  if (allReadable && total > 1 + 1e-9) {
+    issues.push({ path: 'failures', message: `the probabilities add up to ${Number(total.toPrecision(6))}; they must add up to at most 1` });
+  }
+  return issues;
+}
+
+/** A gust is the peak speed, so it cannot be below the mean. */
+function gustChecks(weather: unknown): Issue[] {
+  const wind = isRecord(weather) ? weather.wind : undefined;
+  if (!isRecord(wind) || wind.gust === undefined) return [];
+  const mean = convertQuantity(wind.speed, 'speed');
+  const gust = convertQuantity(wind.gust, 'speed');
+  if (!mean.ok || !gust.ok || gust.value >= mean.value) return [];
+  return [{ path: 'weather.wind.gust', message: `${gust.shown} is below the mean speed ${mean.shown}; the gust is the peak speed, at least the mean` }];
+}
+
+/** Profile rows may come in any order, but two rows at one altitude would make the wind there ambiguous. */
+function profileChecks(weather: unknown): Issue[] {
+  const wind = isRecord(weather) ? weather.wind : undefined;
+  const profile = isRecord(wind) ? wind.profile : undefined;
+  if (!Array.isArray(profile)) return [];
+  const issues: Issue[] = [];
+  const firstRowAt = new Map<number, number>();
+  profile.forEach((row: unknown, i) => {
+    const altitude = convertQuantity(isRecord(row) ? row.altitude : undefined, 'length');
+    if (!altitude.ok) return;
+    const earlier = firstRowAt.get(altitude.value);
+    if (earlier !== undefined) {
+      issues.push({ path: `weather.wind.profile[${i}].altitude`, message: `${altitude.shown} is the same altitude as profile[${earlier}]; each row needs its own altitude` });
+    } else {
+      firstRowAt.set(altitude.value, i);
+    }
+  });
+  return issues;
+}
+
+/** Which vehicle kinds each launch parameter exists for. */
+const LAUNCH_SPREAD_KINDS: Partial<Record<UncertaintyName, VehicleKind[]>> = {
+  'launch.tilt': ['rocket'],
+  // For a release, the azimuth spread turns the heading.
+  'launch.azimuth': ['rocket', 'projectile', 'release'],
+  'launch.speed': ['projectile', 'release'],
+  'launch.elevation': ['projectile'],
+  'launch.height': ['projectile', 'release'],
+  'motor.impulse': ['rocket'],
+};
+
+/** A spread on a parameter the scenario does not have is a mistake, not something to ignore silently. */
+function uncertaintyChecks(raw: Record<string, unknown>, kind: VehicleKind | undefined): Issue[] {
+  const uncertainty = raw.uncertainty;
+  if (!isRecord(uncertainty)) return [];
+  const issues: Issue[] = [];
+  const hasStages = Array.isArray(raw.recovery) && raw.recovery.length > 0;
+  const wind = isRecord(raw.weather) && isRecord(raw.weather.wind) ? raw.weather.wind : undefined;
+  for (const name of Object.keys(uncertainty)) {
+    const path = `uncertainty.${name}`;
+    const kinds = LAUNCH_SPREAD_KINDS[name as UncertaintyName];
+    if (kind !== undefined && kinds !== undefined && !kinds.includes(kind)) {
+      issues.push({ path, message: `a ${kind} has no ${name.split('.')[1]}; remove this spread` });
+    }
+    if ((name === 'recovery.delay' || name === 'recovery.rate') && !hasStages) {
+      issues.push({ path, message: 'the scenario has no recovery stages; remove this spread' });
+    }
+    if (name === 'wind.gust' && wind !== undefined && wind.gust === undefined) {
+      issues.push({ path, message: 'weather.wind.gust is not given, so there is no gust to vary; remove this spread or give a gust' });
+    }
+  }
+  return issues;
+}

@@ -1,0 +1,331 @@
+import { z } from 'zod';
+import { crossCheck, isRecord } from './cross-checks.js';
+import { describeValue, formatPath, unknownFieldMessage } from './errors.js';
+import {
+  drag,
+  fail,
+  featureCollection,
+  forbidden,
+  headCount,
+  leaf,
+  levels,
+  NOT_NEGATIVE,
+  ok,
+  oneOf,
+  optionalQuantity,
+  optionalText,
+  polygon,
+  POSITIVE,
+  pressureHint,
+  quantity,
+  samples,
+  seed,
+  shear,
+  temperatureHint,
+  text,
+  turbulence,
+  uncertaintyShape,
+  version,
+  type LeafResult,
+  type PathPart,
+} from './fields.js';
+import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
+
+/**
+ * The raw scenario file (format version 1) as zod schemas. Structure and types are checked by
+ * zod; every single value is read by a converter from fields.ts that turns units into SI and
+ * checks its range, so a parsed file holds only SI numbers. Checks that span fields (a failure
+ * naming a stage, exactly one of two fields, ...) live in cross-checks.ts and run on the raw JSON,
+ * so they are reported even when other parts of the file are broken.
+ */
+
+export const DEFAULT_MAX_SAMPLES = 10_000_000;
+export const VEHICLE_KINDS: readonly VehicleKind[] = ['rocket', 'projectile', 'release'];
+export const TRIGGER_KINDS: readonly TriggerKind[] = ['apogee', 'altitude', 'time'];
+export const AREA_KINDS: readonly AreaKind[] = ['spectators', 'parking', 'road', 'building', 'water', 'other'];
+
+// ---------------------------------------------------------------------------------------------
+// Objects. Every object rejects fields it does not know: they are almost always typos.
+
+interface UnknownFieldParams {
+  unknownField: true;
+  known: string[];
+}
+
+function unknownField(known: string[]) {
+  return z.unknown().superRefine((_value, ctx) => {
+    const params: UnknownFieldParams = { unknownField: true, known };
+    ctx.addIssue({ code: 'custom', message: 'unknown field', params });
+  });
+}
+
+/** An object whose unknown fields are errors naming the field and the fields it could have meant. */
+function strict<S extends z.core.$ZodLooseShape>(shape: S): z.ZodType<z.output<z.ZodObject<S>>> {
+  // Typed without the catch-all's index signature: a parse that succeeds has no unknown keys.
+  return z.object(shape).catchall(unknownField(Object.keys(shape))) as unknown as z.ZodType<z.output<z.ZodObject<S>>>;
+}
+
+const siteSchema = strict({
+  pad: strict({
+    lat: quantity('angle', { min: -90, max: 90 }),
+    lon: quantity('angle', { min: -180, max: 180 }),
+    elevation: optionalQuantity('length'),
+  }),
+  minimumDistance: optionalQuantity('length', NOT_NEGATIVE),
+  boundary: polygon.optional(),
+  areas: z
+    .array(
+      strict({
+        name: text('a name in quotes'),
+        kind: oneOf(AREA_KINDS),
+        geometry: polygon,
+        people: headCount,
+      }),
+    )
+    .optional(),
+  basemap: featureCollection,
+});
+
+const commonVehicle = {
+  mass: quantity('mass', POSITIVE),
+  diameter: optionalQuantity('length', POSITIVE),
+  referenceArea: optionalQuantity('area', POSITIVE),
+  drag,
+};
+
+const rocketVehicleSchema = strict({
+  kind: oneOf(['rocket'] as const),
+  ...commonVehicle,
+  motor: strict({
+    // Checked by thrust.ts, which may have to read a CSV file first (and reports it missing).
+    thrust: z.unknown().optional(),
+    propellantMass: quantity('mass', POSITIVE),
+  }),
+});
+
+const plainVehicleSchema = (kind: 'projectile' | 'release') =>
+  strict({
+    kind: oneOf([kind] as const),
+    ...commonVehicle,
+    motor: forbidden(`a ${kind} has no motor; remove it, or set vehicle.kind to 'rocket'`),
+  });
+
+const projectileVehicleSchema = plainVehicleSchema('projectile');
+const releaseVehicleSchema = plainVehicleSchema('release');
+
+/** Used only to report problems when vehicle.kind is missing or misspelt. */
+const unknownKindVehicleSchema = strict({ kind: oneOf(VEHICLE_KINDS), ...commonVehicle, motor: z.unknown().optional() });
+
+const rocketLaunchSchema = strict({
+  rail: quantity('length', NOT_NEGATIVE),
+  tilt: quantity('angle', { min: 0, max: 90 }),
+  azimuth: quantity('angle'),
+});
+
+const projectileLaunchSchema = strict({
+  speed: quantity('speed', POSITIVE),
+  elevation: quantity('angle', { min: 0, max: 90 }),
+  azimuth: quantity('angle'),
+  height: optionalQuantity('length', NOT_NEGATIVE),
+});
+
+const releaseLaunchSchema = strict({
+  height: quantity('length', POSITIVE),
+  speed: quantity('speed', NOT_NEGATIVE),
+  heading: quantity('angle'),
+  east: optionalQuantity('length'),
+  north: optionalQuantity('length'),
+});
+
+const stageSchema = strict({
+  name: text('a stage name in quotes'),
+  trigger: oneOf(TRIGGER_KINDS),
+  delay: optionalQuantity('time', NOT_NEGATIVE),
+  altitude: optionalQuantity('length', POSITIVE),
+  time: optionalQuantity('time', NOT_NEGATIVE),
+  dragArea: optionalQuantity('area', POSITIVE),
+  descentRate: optionalQuantity('speed', POSITIVE),
+});
+
+const profileRowSchema = strict({
+  altitude: quantity('length', NOT_NEGATIVE),
+  speed: quantity('speed', NOT_NEGATIVE),
+  from: quantity('angle'),
+});
+
+const weatherSchema = strict({
+  wind: strict({
+    speed: quantity('speed', NOT_NEGATIVE),
+    from: quantity('angle'),
+    gust: optionalQuantity('speed', NOT_NEGATIVE),
+    height: optionalQuantity('length', POSITIVE),
+    shear,
+    profile: z.array(profileRowSchema).min(1).optional(),
+  }),
+  // The range is wide enough for any launch site on Earth and narrow enough to catch a missing unit.
+  temperature: optionalQuantity('temperature', { min: 173.15, max: 343.15, hint: temperatureHint }),
+  pressure: optionalQuantity('pressure', { min: 30_000, max: 110_000, hint: pressureHint }),
+  turbulence,
+});
+
+const failureSchema = strict({
+  name: text('a name in quotes'),
+  probability: quantity('fraction', { min: 0, max: 1 }),
+  // "skip" is the only effect in version 1, so it may be left out.
+  effect: leaf((value): LeafResult<'skip'> => {
+    if (value === 'skip') return ok('skip');
+    return fail(`${describeValue(value)} is not an effect this version knows; expected 'skip'`);
+  }).optional(),
+  stage: text("a recovery stage name or 'all'"),
+});
+
+const runSchema = (cap: number) =>
+  strict({
+    samples: samples(cap),
+    seed,
+    levels,
+    keepOut: strict({
+      level: optionalQuantity('fraction', { above: 0, below: 1 }),
+      margin: optionalQuantity('length', NOT_NEGATIVE),
+    }).optional(),
+  });
+
+/** Every top-level field; vehicle and launch are parsed on their own once vehicle.kind is known. */
+const topSchema = (cap: number) =>
+  strict({
+    strewn: version,
+    name: text('a short title in quotes'),
+    notes: optionalText,
+    site: siteSchema,
+    // Parsed by parseBody, which also reports them missing.
+    vehicle: z.unknown().optional(),
+    launch: z.unknown().optional(),
+    recovery: z.array(stageSchema).optional(),
+    weather: weatherSchema,
+    uncertainty: strict(uncertaintyShape()).optional(),
+    failures: z.array(failureSchema).optional(),
+    run: runSchema(cap).optional(),
+  });
+
+// ---------------------------------------------------------------------------------------------
+// Parsed (validated, SI) scenario.
+
+type TopOutput = z.output<ReturnType<typeof topSchema>>;
+
+export type ParsedSite = z.output<typeof siteSchema>;
+export type ParsedStage = z.output<typeof stageSchema>;
+export type ParsedWeather = z.output<typeof weatherSchema>;
+export type ParsedFailure = z.output<typeof failureSchema>;
+export type ParsedRun = z.output<ReturnType<typeof runSchema>>;
+export type ParsedRocketVehicle = z.output<typeof rocketVehicleSchema>;
+export type ParsedPlainVehicle = z.output<typeof projectileVehicleSchema>;
+
+export type ParsedBody =
+  | { kind: 'rocket'; vehicle: ParsedRocketVehicle; launch: z.output<typeof rocketLaunchSchema> }
+  | { kind: 'projectile'; vehicle: ParsedPlainVehicle; launch: z.output<typeof projectileLaunchSchema> }
+  | { kind: 'release'; vehicle: ParsedPlainVehicle; launch: z.output<typeof releaseLaunchSchema> };
+
+/** The file after validation: structure as written, every quantity in SI, no defaults yet. */
+export type ParsedScenario = Omit<TopOutput, 'vehicle' | 'launch'> & { body: ParsedBody };
+
+export interface ValidateOptions {
+  /** Highest `run.samples` accepted (default 10,000,000). */
+  maxSamples?: number;
+}
+
+export interface Validation {
+  /** Present when there are no issues. */
+  parsed?: ParsedScenario;
+  issues: Issue[];
+}
+
+/**
+ * Validates a scenario read from JSON and converts its quantities to SI. Collects every problem
+ * in the file. The motor's thrust curve is not checked here (it may live in a file); see thrust.ts.
+ */
+export function validateScenario(json: unknown, options: ValidateOptions = {}): Validation {
+  const cap = options.maxSamples ?? DEFAULT_MAX_SAMPLES;
+  if (!Number.isInteger(cap) || cap < 1) {
+    return { issues: [{ path: 'maxSamples', message: `${describeValue(cap)} is not a sample cap; expected a whole number, 1 or more` }] };
+  }
+  if (!isRecord(json)) {
+    return { issues: [{ path: '', message: `${describeValue(json)}; expected the scenario to be a JSON object {...}` }] };
+  }
+  const issues: Issue[] = [];
+  const top = parseWith(topSchema(cap), json, [], issues);
+  const body = parseBody(json.vehicle, json.launch, issues);
+  issues.push(...crossCheck(json, vehicleKindOf(json.vehicle)));
+  if (issues.length > 0 || top === undefined || body === undefined) return { issues };
+  const { vehicle: _vehicle, launch: _launch, ...rest } = top;
+  return { parsed: { ...rest, body }, issues };
+}
+
+/** The vehicle kind as written, if it is one we know; decides how vehicle and launch are read. */
+export function vehicleKindOf(vehicle: unknown): VehicleKind | undefined {
+  const kind = isRecord(vehicle) ? vehicle.kind : undefined;
+  return VEHICLE_KINDS.find((k) => k === kind);
+}
+
+function parseBody(vehicle: unknown, launch: unknown, issues: Issue[]): ParsedBody | undefined {
+  const kind = vehicleKindOf(vehicle);
+  switch (kind) {
+    case 'rocket': {
+      const v = parseWith(rocketVehicleSchema, vehicle, ['vehicle'], issues);
+      const l = parseWith(rocketLaunchSchema, launch, ['launch'], issues);
+      return v && l && { kind, vehicle: v, launch: l };
+    }
+    case 'projectile': {
+      const v = parseWith(projectileVehicleSchema, vehicle, ['vehicle'], issues);
+      const l = parseWith(projectileLaunchSchema, launch, ['launch'], issues);
+      return v && l && { kind, vehicle: v, launch: l };
+    }
+    case 'release': {
+      const v = parseWith(releaseVehicleSchema, vehicle, ['vehicle'], issues);
+      const l = parseWith(releaseLaunchSchema, launch, ['launch'], issues);
+      return v && l && { kind, vehicle: v, launch: l };
+    }
+    default:
+      // Without a kind the launch fields cannot be judged (the vehicle.kind issue says why), but a
+      // missing launch can still be reported.
+      parseWith(unknownKindVehicleSchema, vehicle, ['vehicle'], issues);
+      parseWith(z.looseObject({}), launch, ['launch'], issues);
+      return undefined;
+  }
+}
+
+function parseWith<T>(schema: z.ZodType<T>, value: unknown, prefix: PathPart[], issues: Issue[]): T | undefined {
+  const result = schema.safeParse(value, { reportInput: true });
+  if (result.success) return result.data;
+  for (const issue of result.error.issues) issues.push(toIssue(issue, prefix));
+  return undefined;
+}
+
+const TYPE_WORDS: Record<string, string> = {
+  object: 'an object {...}',
+  array: 'a list [...]',
+  string: 'text in quotes',
+  number: 'a number',
+  boolean: 'true or false',
+  nonoptional: 'a value',
+};
+
+/** Turns one zod issue into a user-facing issue: dotted path, the value given, what was expected. */
+function toIssue(issue: z.core.$ZodIssue, prefix: PathPart[]): Issue {
+  const parts = [...prefix, ...issue.path] as PathPart[];
+  const path = formatPath(parts);
+  const input = (issue as { input?: unknown }).input;
+  const given = input === undefined ? 'missing (required)' : describeValue(input);
+  switch (issue.code) {
+    case 'custom': {
+      const params = issue.params as Partial<UnknownFieldParams> | undefined;
+      if (params?.unknownField === true) return { path, message: unknownFieldMessage(String(parts[parts.length - 1]), params.known ?? []) };
+      return { path, message: issue.message };
+    }
+    case 'invalid_type':
+      return { path, message: `${given}; expected ${TYPE_WORDS[issue.expected] ?? issue.expected}` };
+    case 'too_small':
+      return { path, message: `${given} is too short; expected at least ${String(issue.minimum)} ${issue.origin === 'array' ? 'entries' : ''}`.trimEnd() };
+    default:
+      return { path, message: `${given}: ${issue.message}` };
+  }
+}
