@@ -72,6 +72,14 @@ export interface AnalysisResult {
   timing_ms: Record<string, number>;
 }
 
+/**
+ * a ≥ b allowing for rounding: 1 − 0.99 is 0.010000000000000009 in floating point, and a mode of
+ * probability 0.01 must count as "at or above" it.
+ */
+function atLeast(a: number, b: number): boolean {
+  return a >= b - 1e-12;
+}
+
 function checkLevels(levels: number[]): number[] {
   const sorted = [...levels].sort((a, b) => a - b);
   sorted.forEach((p, k) => {
@@ -150,7 +158,7 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
   const keepOutThreshold = allThresholds[wanted.indexOf(run.keepOut.level)];
   const hulls = set.modeNames
     .map((name, m) => ({ name, m }))
-    .filter(({ m }) => (set.modeProbability[m] ?? 0) >= 1 - run.keepOut.level)
+    .filter(({ m }) => atLeast(set.modeProbability[m] ?? 0, 1 - run.keepOut.level))
     .map(({ name, m }) => ({ mode: name, ring: convexHull(set.east, set.north, (i) => set.mode[i] === m) }));
   const keepOut = keepOutZone({
     regionMetres: traceRegion(grid, keepOutThreshold),
