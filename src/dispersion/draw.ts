@@ -41,10 +41,10 @@ export class InputDrawer {
   draw(stream: SampleStream, mode: number, wind: MeanWind, inputs: FlightInputs): void {
     const sc = this.scenario;
     const v = drawScratch;
+    readSpreadUniforms(stream, uniformScratch);
     for (let i = 0; i < UNCERTAINTY_NAMES.length; i++) {
-      const u = stream.uniform();
       const spread = this.spreads[i];
-      v[i] = spread === undefined ? this.nominal[i] : this.nominal[i] + spreadOffset(spread, this.nominal[i], u);
+      v[i] = spread === undefined ? this.nominal[i] : this.nominal[i] + spreadOffset(spread, this.nominal[i], uniformScratch[i]);
     }
     const launch = sc.launch;
     inputs.windSpeed = Math.max(0, v[0]);
@@ -82,6 +82,15 @@ export class InputDrawer {
 }
 
 const drawScratch = new Float64Array(UNCERTAINTY_NAMES.length);
+const uniformScratch = new Float64Array(UNCERTAINTY_NAMES.length);
+
+/**
+ * The uniform numbers a sample's spreads are drawn from, one per name of UNCERTAINTY_NAMES in that
+ * order: the first draws of the sample's stream. Sensitivity analysis reads them back this way.
+ */
+export function readSpreadUniforms(stream: SampleStream, out: Float64Array): void {
+  for (let i = 0; i < UNCERTAINTY_NAMES.length; i++) out[i] = stream.uniform();
+}
 
 function clamp(x: number, lo: number, hi: number): number {
   return x < lo ? lo : x > hi ? hi : x;

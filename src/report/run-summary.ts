@@ -7,6 +7,7 @@ import { FAILURE_REASONS } from '../flight/status.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import { VERSION } from '../version.js';
 import { CAUTION } from './caution.js';
+import type { StudySensitivity } from '../sensitivity/study.js';
 
 export interface Spread5 {
   mean: number;
@@ -29,6 +30,8 @@ export interface RunSummary extends SummaryParts {
   flightTime_s: Spread5;
   farthestLanding: { distance_m: number; bearing_deg: number; sample: number; mode: string } | null;
   modes: { name: string; probability: number; samples: number; landed: number }[];
+  /** What drives the spread of the landings (absent when the scenario has no spreads). */
+  sensitivity?: StudySensitivity;
   scenarioWarnings: string[];
   caution: string;
 }
@@ -63,6 +66,7 @@ export function buildRunSummary(
   run: RunResult,
   analysis: AnalysisResult | null,
   warnings: Issue[],
+  sensitivity?: StudySensitivity,
 ): RunSummary {
   const weights = sampleWeights(run);
   const failures = new Map<number, number>();
@@ -104,6 +108,7 @@ export function buildRunSummary(
       landed: landed[m],
     })),
     ...parts,
+    ...(sensitivity ? { sensitivity } : {}),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };
