@@ -1,0 +1,30 @@
+import type { EnvelopeResult } from './envelope.js';
+import { csvField } from '../analysis/areasCsv.js';
+
+/** envelope.csv: one row per direction. An empty limit means the lowest speed of the grid fails. */
+export function writeEnvelopeCsv(e: EnvelopeResult): string {
+  const lines = ['direction_deg,limit_speed_m_s,limit_is_grid_top,first_failing_test'];
+  for (const d of e.limits) {
+    lines.push([d.from, d.limit ?? '', d.aboveGrid ? 'yes' : 'no', csvField(d.firstFailure.join('; '))].join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** envelope.json: the grid, the limits and every grid point flown. */
+export function writeEnvelopeJson(e: EnvelopeResult, extra: Record<string, unknown>): string {
+  const round = (x: number) => (Number.isFinite(x) ? Math.round(x * 10) / 10 : null);
+  return (
+    JSON.stringify(
+      {
+        ...extra,
+        ...e,
+        limits: e.limits.map((d) => ({
+          ...d,
+          cases: d.cases.map((c) => ({ ...c, keepOutArea_m2: round(c.keepOutArea_m2), keepOutMaxDistance_m: round(c.keepOutMaxDistance_m) })),
+        })),
+      },
+      null,
+      2,
+    ) + '\n'
+  );
+}
