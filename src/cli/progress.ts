@@ -2,7 +2,7 @@ import type { Progress } from '../dispersion/execute.js';
 
 /** A one-line progress bar on stderr, drawn only when stderr is a terminal. */
 export function progressBar(stream: NodeJS.WriteStream, enabled: boolean): { update(p: Progress): void; end(): void } {
-  const active = enabled && stream.isTTY === true;
+  let active = enabled && stream.isTTY === true;
   let last = 0;
   return {
     update(p: Progress) {
@@ -16,8 +16,10 @@ export function progressBar(stream: NodeJS.WriteStream, enabled: boolean): { upd
       const pct = ((100 * p.done) / p.total).toFixed(0).padStart(3);
       stream.write(`\r[${bar}] ${pct}%  ${p.done.toLocaleString('en')} / ${p.total.toLocaleString('en')}  ${Math.round(p.rate).toLocaleString('en')} flights/s `);
     },
+    /** Clears the bar; only the first call writes anything. */
     end() {
       if (active) stream.write('\r' + ' '.repeat(90) + '\r');
+      active = false;
     },
   };
 }
