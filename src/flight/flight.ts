@@ -8,6 +8,8 @@ import { MotorModel } from '../physics/motor.js';
 import { Dopri5, type OdeSystem } from './dopri5.js';
 import type { FlightInputs } from './inputs.js';
 import { FlightStatus } from './status.js';
+import { RecoverySchedule } from './recovery-schedule.js';
+import { locateCrossing } from './locate-crossing.js';
 
 const DEG = Math.PI / 180;
 
@@ -58,10 +60,6 @@ export function emptyResult(): FlightResult {
 /** Receives the state after every accepted step (for ground tracks); not used in Monte-Carlo runs. */
 export type TrackSink = (t: number, y: Float64Array) => void;
 
-const TRIGGER_APOGEE = 0;
-const TRIGGER_ALTITUDE = 1;
-const TRIGGER_TIME = 2;
-
 // State events, located on the dense output.
 const EV_NONE = -1;
 const EV_RAIL = 0;
@@ -89,30 +87,21 @@ export class FlightModel implements OdeSystem {
   private readonly options: FlightOptions;
   private readonly solver = new Dopri5(6);
 
-  // Recovery stages (nominal), as typed arrays.
-  private readonly stageCount: number;
-  private readonly stageTrigger: Uint8Array;
-  private readonly stageAltitude: Float64Array;
-  private readonly stageTime: Float64Array;
-  private readonly stageDelay: Float64Array;
-  private readonly stageDragArea: Float64Array;
-  // Per flight.
-  private readonly deployAt: Float64Array;
-  private readonly deployed: Uint8Array;
-  private skip: Uint8Array;
+  private readonly recovery: RecoverySchedule;
 
   // Per-sample configuration read by `derivative`.
   private dryMass = 1;
   private cdScale = 1;
-  private rateFactor = 1;
   private onRail = false;
   private railX = 0;
   private railY = 0;
   private railZ = 1;
   private railLength = 0;
-  /** Drag area of the deployed stage (m²), or 0 while the body's own drag acts. */
-  private activeDragArea = 0;
-  private activeStage = -1;
+  // The event being located: kind and level, read by `eventAt`.
+  private eventKind = 0;
+  private eventLevel = 0;
+  /** The event function on the dense output; one closure for the model's lifetime. */
+  private readonly eventAt = (t: number): number => this.eventValue(this.eventKind, t, this.eventLevel);
 
   private readonly w = new Float64Array(3);
   private readonly acc = new Float64Array(3);
@@ -129,24 +118,7 @@ export class FlightModel implements OdeSystem {
     this.motor = scenario.vehicle.kind === 'rocket' && scenario.vehicle.motor ? new MotorModel(scenario.vehicle.motor) : null;
     this.stopAtKnots = this.motor !== null && this.motor.knots <= 256;
     this.referenceArea = scenario.vehicle.referenceArea;
-    const stages = scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery;
-    const n = stages.length;
-    this.stageCount = n;
-    this.stageTrigger = new Uint8Array(n);
-    this.stageAltitude = new Float64Array(n);
-    this.stageTime = new Float64Array(n);
-    this.stageDelay = new Float64Array(n);
-    this.stageDragArea = new Float64Array(n);
-    this.deployAt = new Float64Array(n);
-    this.deployed = new Uint8Array(n);
-    this.skip = new Uint8Array(n);
-    stages.forEach((s, i) => {
-      this.stageTrigger[i] = s.trigger === 'apogee' ? TRIGGER_APOGEE : s.trigger === 'altitude' ? TRIGGER_ALTITUDE : TRIGGER_TIME;
-      this.stageAltitude[i] = s.altitude ?? 0;
-      this.stageTime[i] = s.time ?? 0;
-      this.stageDelay[i] = s.delay;
-      this.stageDragArea[i] = s.dragArea;
-    });
+    this.recovery = new RecoverySchedule(scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery);
     const atol = this.solver.atol;
     atol[0] = atol[1] = atol[2] = this.options.atolPosition;
     atol[3] = atol[4] = atol[5] = this.options.atolVelocity;
@@ -176,8 +148,9 @@ export class FlightModel implements OdeSystem {
     }
     const rho = this.air.densityAt(z);
     let cda: number;
-    if (this.activeDragArea > 0) {
-      cda = this.activeDragArea;
+    const stageArea = this.recovery.activeDragArea;
+    if (stageArea > 0) {
+      cda = stageArea;
     } else {
       const mach = speed / this.air.speedOfSoundAt(z);
       cda = this.cdScale * this.dragCurve.at(mach) * this.referenceArea;
@@ -234,12 +207,10 @@ export class FlightModel implements OdeSystem {
     const solver = this.solver;
     const y0 = this.probe;
 
+    const recovery = this.recovery;
     this.dryMass = inputs.mass;
     this.cdScale = inputs.cdScale;
-    this.rateFactor = inputs.rateFactor;
-    this.skip = inputs.skipStage;
-    this.activeDragArea = 0;
-    this.activeStage = -1;
+    recovery.reset(inputs);
     this.wind.setSample(inputs.windSpeed, inputs.windTurn);
     this.gusts.reset(inputs.sigmaW, normal);
     if (this.motor !== null) this.motor.setImpulseScale(inputs.impulseScale);
@@ -283,10 +254,6 @@ export class FlightModel implements OdeSystem {
       y0[4] = inputs.speed * Math.cos(hd);
       y0[5] = 0;
     }
-    for (let i = 0; i < this.stageCount; i++) {
-      this.deployed[i] = 0;
-      this.deployAt[i] = this.stageTrigger[i] === TRIGGER_TIME ? this.stageTime[i] + this.stageDelay[i] : Infinity;
-    }
     solver.reset(y0);
     const y = solver.y;
     let t = 0;
@@ -294,8 +261,8 @@ export class FlightModel implements OdeSystem {
     if (track !== null) track(t, y);
     if (kind !== 'rocket' && y[5] <= 0) {
       apogeeReached = true;
-      this.reachApogee(t, y[2], inputs);
-      this.deployDue(t);
+      recovery.onApogee(t, y[2]);
+      recovery.deployDue(t);
     }
 
     let h = kind === 'rocket' ? 0.01 : 0.05;
@@ -305,9 +272,7 @@ export class FlightModel implements OdeSystem {
       // The next moment something happens on the clock: burnout, a timed deployment, the time limit.
       let tNext = opts.maxTime;
       if (burning) tNext = Math.min(tNext, this.stopAtKnots ? this.motor!.nextKnotAfter(t) : burnTime);
-      for (let i = 0; i < this.stageCount; i++) {
-        if (this.deployed[i] === 0 && this.skip[i] === 0 && this.deployAt[i] < tNext) tNext = this.deployAt[i];
-      }
+      tNext = Math.min(tNext, recovery.nextDeployment());
       let hTry = h;
       let hitsClock = false;
       if (t + hTry >= tNext) {
@@ -348,14 +313,14 @@ export class FlightModel implements OdeSystem {
       if (this.onRail) {
         const s = y[0] * this.railX + y[1] * this.railY + y[2] * this.railZ;
         if (s >= this.railLength) {
-          const te = this.locate(EV_RAIL, t, tNew, yPrevS - this.railLength, s - this.railLength);
+          const te = this.locate(EV_RAIL, 0, t, tNew, yPrevS - this.railLength, s - this.railLength);
           if (te <= tEvent) { event = EV_RAIL; tEvent = te; }
         } else if (!burning && s <= 0 && y[3] * this.railX + y[4] * this.railY + y[5] * this.railZ <= 0) {
           return this.fail(out, FlightStatus.NO_LIFTOFF, tNew, steps);
         }
       } else {
         if (!apogeeReached && y[5] <= 0 && yPrevVz > 0) {
-          const te = this.locate(EV_APOGEE, t, tNew, yPrevVz, y[5]);
+          const te = this.locate(EV_APOGEE, 0, t, tNew, yPrevVz, y[5]);
           if (te <= tEvent) { event = EV_APOGEE; tEvent = te; }
         } else if (!apogeeReached && y[5] <= 0 && yPrevVz <= 0) {
           // Left the rail already descending (a very weak motor): apogee is the rail exit.
@@ -363,15 +328,14 @@ export class FlightModel implements OdeSystem {
           tEvent = t;
         }
         if (y[2] <= 0 && yPrevZ > 0) {
-          const te = this.locate(EV_GROUND, t, tNew, yPrevZ, y[2]);
+          const te = this.locate(EV_GROUND, 0, t, tNew, yPrevZ, y[2]);
           if (te < tEvent || (te === tEvent && event !== EV_APOGEE)) { event = EV_GROUND; tEvent = te; }
         }
         if (apogeeReached) {
-          for (let i = 0; i < this.stageCount; i++) {
-            if (this.stageTrigger[i] !== TRIGGER_ALTITUDE || this.deployed[i] !== 0 || this.skip[i] !== 0) continue;
-            const alt = this.stageAltitude[i];
+          for (let i = 0; i < recovery.count; i++) {
+            const alt = recovery.awaitedAltitude(i);
             if (y[2] <= alt && yPrevZ > alt) {
-              const te = this.locate(EV_STAGE, t, tNew, yPrevZ - alt, y[2] - alt, alt);
+              const te = this.locate(EV_STAGE, alt, t, tNew, yPrevZ - alt, y[2] - alt);
               if (te < tEvent) { event = EV_STAGE + i; tEvent = te; }
             }
           }
@@ -419,11 +383,12 @@ export class FlightModel implements OdeSystem {
       } else if (event === EV_APOGEE) {
         apogeeReached = true;
         out.apogee = Math.max(out.apogee, ye[2]);
-        this.reachApogee(t, ye[2], inputs);
+        recovery.onApogee(t, ye[2]);
         out.apogeeTime = t;
-        this.deployDue(t);
+        recovery.deployDue(t);
       } else {
-        this.deploy(event - EV_STAGE);
+        recovery.onAltitude(event - EV_STAGE, t);
+        recovery.deployDue(t);
       }
       if (track !== null) track(t, ye);
       solver.reset(ye);
@@ -436,11 +401,7 @@ export class FlightModel implements OdeSystem {
    * and the stepper carries on as it was): burnout, a timed deployment, or the time limit.
    */
   private isDiscontinuity(t: number, burning: boolean, burnTime: number): boolean {
-    if (t >= this.options.maxTime || (burning && t >= burnTime)) return true;
-    for (let i = 0; i < this.stageCount; i++) {
-      if (this.deployed[i] === 0 && this.skip[i] === 0 && this.deployAt[i] <= t) return true;
-    }
-    return false;
+    return t >= this.options.maxTime || (burning && t >= burnTime) || this.recovery.isDue(t);
   }
 
   /** Handles burnout, timed deployments and the time limit at time t. Returns true when the flight ended. */
@@ -449,36 +410,11 @@ export class FlightModel implements OdeSystem {
       this.fail(out, FlightStatus.MAX_TIME, t, steps);
       return true;
     }
-    this.deployDue(t);
+    this.recovery.deployDue(t);
     // Thrust stops or a stage's drag starts here: the derivative jumps, so restart the stepper
     // rather than reuse the last stage across the jump.
     this.solver.reset(this.solver.y);
     return false;
-  }
-
-  /** Schedules apogee-triggered stages and deploys altitude stages already below the apogee. */
-  private reachApogee(t: number, altitude: number, inputs: FlightInputs): void {
-    for (let i = 0; i < this.stageCount; i++) {
-      const delay = Math.max(0, this.stageDelay[i] + inputs.delayOffset);
-      if (this.stageTrigger[i] === TRIGGER_APOGEE) this.deployAt[i] = t + delay;
-      else if (this.stageTrigger[i] === TRIGGER_ALTITUDE && altitude <= this.stageAltitude[i]) this.deployAt[i] = t + delay;
-    }
-  }
-
-  /** Deploys every stage whose time has come. */
-  private deployDue(t: number): void {
-    for (let i = 0; i < this.stageCount; i++) {
-      if (this.deployed[i] === 0 && this.skip[i] === 0 && this.deployAt[i] <= t) this.deploy(i);
-    }
-  }
-
-  private deploy(i: number): void {
-    this.deployed[i] = 1;
-    // A later stage replaces the one before; an earlier stage never replaces a later one.
-    if (i > this.activeStage) {
-      this.activeStage = i;
-      this.activeDragArea = this.stageDragArea[i] / (this.rateFactor * this.rateFactor);
-    }
   }
 
   private fail(out: FlightResult, status: number, t: number, steps: number): FlightResult {
@@ -506,31 +442,11 @@ export class FlightModel implements OdeSystem {
     }
   }
 
-  /**
-   * Time of the sign change of an event function within the last step, by the Illinois variant of
-   * regula falsi on the dense output (superlinear, and never leaves the bracket).
-   */
-  private locate(kind: number, ta: number, tb: number, ga: number, gb: number, level = 0): number {
-    if (ga === 0) return ta;
-    let a = ta, b = tb, fa = ga, fb = gb;
-    let side = 0;
-    for (let iter = 0; iter < 60; iter++) {
-      const c = (a * fb - b * fa) / (fb - fa);
-      if (!(Math.abs(b - a) > 1e-10)) break;
-      const fc = this.eventValue(kind, c, level);
-      if (fc === 0) return c;
-      if ((fc > 0) === (fb > 0)) {
-        b = c; fb = fc;
-        if (side === -1) fa *= 0.5;
-        side = -1;
-      } else {
-        a = c; fa = fc;
-        if (side === 1) fb *= 0.5;
-        side = 1;
-      }
-    }
-    // Return the bracket end that lies past the crossing so the event is never missed.
-    return b;
+  /** Time of the crossing of an event function within the last step (see locate-crossing.ts). */
+  private locate(kind: number, level: number, ta: number, tb: number, ga: number, gb: number): number {
+    this.eventKind = kind;
+    this.eventLevel = level;
+    return locateCrossing(this.eventAt, ta, tb, ga, gb);
   }
 }
 
