@@ -1,5 +1,6 @@
 import { runCommand, RUN_HELP } from './run.js';
 import { checkCommand, CHECK_HELP } from './check.js';
+import { sheetCommand, SHEET_HELP } from './sheet.js';
 
 export interface Command {
   summary: string;
@@ -10,6 +11,7 @@ export interface Command {
 export const COMMANDS: Record<string, Command> = {
   run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', help: RUN_HELP, run: runCommand },
   check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', help: CHECK_HELP, run: checkCommand },
+  sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', help: SHEET_HELP, run: sheetCommand },
 };
 
 export function mainHelp(): string {

@@ -7,6 +7,7 @@ import { landingSetFromRun } from '../analysis/from-run.js';
 import { buildResultFiles } from '../report/result-files.js';
 import { formatRunSummary } from '../report/run-text.js';
 import { buildRunSummary } from '../report/run-summary.js';
+import { studySensitivity } from '../sensitivity/study.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
@@ -16,9 +17,10 @@ import { UsageError } from './errors.js';
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
 Flies every Monte-Carlo sample of the scenario and writes the results into a folder:
-landings.csv, summary.json, contours.geojson, keepout.geojson, landings.geojson, areas.csv and
-result.kml. The folder appears only when the run has finished; a failed or cancelled run leaves
-nothing behind.
+landings.csv, summary.json, contours.geojson, keepout.geojson, landings.geojson, areas.csv,
+result.kml, the review sheet (sheet.pdf, map.svg) and what redraws it (scenario.json, review.json;
+see strewn sheet). The folder appears only when the run has finished; a failed or cancelled run
+leaves nothing behind.
 
 Options:
   --samples N       number of samples (default: the scenario's run.samples)
@@ -77,7 +79,8 @@ export async function runCommand(args: string[]): Promise<number> {
     bar.end();
     const set = landingSetFromRun(run, scenario);
     const analysis = set.east.length >= 10 ? analyze(set, scenario.site, scenario.run) : null;
-    const summary = buildRunSummary(scenario, loaded.hash, run, analysis, loaded.warnings);
+    const sensitivity = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0 ? studySensitivity(scenario, run) : undefined;
+    const summary = buildRunSummary(scenario, loaded.hash, run, analysis, loaded.warnings, sensitivity);
     for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
     out.commit();
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');

@@ -7,32 +7,56 @@ import { writeKml } from '../analysis/kml.js';
 import type { Scenario } from '../scenario/types.js';
 import { landingsCsvChunks } from './landings-csv.js';
 import type { RunSummary } from './run-summary.js';
+import { reviewFacts, runDate } from './sheet/review-facts.js';
+import { sheetInputFromTexts } from './sheet/sheet-input.js';
+import { buildSheet } from './sheet/index.js';
 
 export type FileContent = string | Uint8Array | Iterable<string>;
+
+export interface ResultFileOptions {
+  /** When the results were computed (default: SOURCE_DATE_EPOCH when set, else now). */
+  computedAt?: Date;
+}
 
 /**
  * Every file of a results folder, by name, in a fixed order. Used by the command line (written to
  * disk) and the web page (offered as downloads), so both produce the same bytes.
+ *
+ * scenario.json (the normalised scenario as loaded; its hash is summary.scenarioHash) and
+ * review.json (figures summary.json lacks) let `strewn sheet` redraw sheet.pdf and map.svg from the
+ * folder alone; the sheet here is drawn from the same texts, so both give the same bytes.
  */
 export function buildResultFiles(
   scenario: Scenario,
   set: LandingSet,
   analysis: AnalysisResult | null,
   summary: RunSummary,
+  options: ResultFileOptions = {},
 ): [string, FileContent][] {
   const frame = createLocalFrame(scenario.site.pad);
+  const summaryText = JSON.stringify(summary, null, 2) + '\n';
+  const scenarioText = JSON.stringify(scenario, null, 2) + '\n';
+  const reviewText = JSON.stringify(reviewFacts(analysis, options.computedAt ?? runDate()), null, 2) + '\n';
   const files: [string, FileContent][] = [
     ['landings.csv', landingsCsvChunks(set, frame)],
-    ['summary.json', JSON.stringify(summary, null, 2) + '\n'],
+    ['summary.json', summaryText],
     ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad)],
+    ['scenario.json', scenarioText],
+    ['review.json', reviewText],
   ];
+  let contoursText: string | null = null;
+  let keepOutText: string | null = null;
   if (analysis !== null) {
+    contoursText = writeContoursGeoJSON(analysis);
+    keepOutText = writeKeepOutGeoJSON(analysis);
     files.push(
-      ['contours.geojson', writeContoursGeoJSON(analysis)],
-      ['keepout.geojson', writeKeepOutGeoJSON(analysis)],
+      ['contours.geojson', contoursText],
+      ['keepout.geojson', keepOutText],
       ['areas.csv', writeAreasCsv(analysis.areas)],
       ['result.kml', writeKml(analysis, scenario.site, scenario.name)],
     );
   }
+  const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set));
+  files.push(['map.svg', sheet.svg], ['sheet.pdf', sheet.pdf]);
   return files;
 }

@@ -1,0 +1,324 @@
+/**
+ * What page 2 of the sheet says, as a list of blocks (headings, label/value rows, tables, bullet
+ * lists, sign-off lines); record-page.ts decides where they go. Every figure comes from the results
+ * folder; nothing here is computed anew except descriptions of the inputs (motor impulse and burn
+ * time from the thrust curve, air at the pad from the standard atmosphere).
+ *
+ * @example
+ *   const blocks = recordBlocks(input, unitFormatter('metric'));
+ */
+import { MotorModel } from '../../physics/motor.js';
+import { AirModel } from '../../physics/air.js';
+import type { Scenario, Spread, UncertaintyName } from '../../scenario/types.js';
+import { UNCERTAINTY_NAMES } from '../../scenario/types.js';
+import { MIN_BAND_SAMPLES } from '../../analysis/confidence.js';
+import { bearingText } from './compass.js';
+import type { FontName } from './display-list.js';
+import { dateText } from './page-parts.js';
+import type { SheetInput } from './sheet-input.js';
+import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from './units.js';
+
+export interface Column {
+  title: string;
+  /** Share of the table's width. */
+  weight: number;
+  align?: 'left' | 'right';
+}
+
+export type Block =
+  | { kind: 'heading'; text: string }
+  | { kind: 'rows'; rows: { label: string; value: string; font?: FontName }[] }
+  | { kind: 'table'; id: string; columns: Column[]; rows: string[][] }
+  | { kind: 'text'; text: string; font?: FontName }
+  | { kind: 'bullets'; items: string[] }
+  | { kind: 'signoff' };
+
+export interface RecordLimits {
+  /** Most lines of scenario notes shown (the rest is in scenario.json). */
+  noteLines: number;
+  /** Most warnings listed (the rest is in summary.json). */
+  warnings: number;
+}
+
+const SPREAD_WORDS: Record<UncertaintyName, string> = {
+  'wind.speed': 'wind speed',
+  'wind.from': 'wind direction',
+  'wind.gust': 'gust speed',
+  'launch.tilt': 'rail tilt',
+  'launch.azimuth': 'launch direction',
+  'launch.speed': 'launch speed',
+  'launch.elevation': 'launch elevation',
+  'launch.height': 'launch height',
+  'motor.impulse': 'motor impulse',
+  'vehicle.mass': 'vehicle mass',
+  'vehicle.drag': 'drag coefficient',
+  'recovery.delay': 'deployment delay',
+  'recovery.rate': 'descent rate (drag area)',
+};
+
+/** An absolute spread value in the parameter's unit. */
+function spreadValue(name: UncertaintyName, x: number, u: UnitFormatter): string {
+  switch (name) {
+    case 'wind.speed':
+    case 'wind.gust':
+    case 'launch.speed':
+      return u.speed(x);
+    case 'wind.from':
+    case 'launch.tilt':
+    case 'launch.azimuth':
+    case 'launch.elevation':
+      return `${significant(x, 3)}\u00b0`;
+    case 'launch.height':
+      return u.shortLength(x);
+    case 'motor.impulse':
+      return u.impulse(x);
+    case 'vehicle.mass':
+      return u.mass(x);
+    case 'vehicle.drag':
+      return `Cd ${significant(x, 3)}`;
+    case 'recovery.delay':
+      return `${significant(x, 3)} s`;
+    case 'recovery.rate':
+      return `${significant(x * 100, 3)} %`;
+  }
+}
+
+export function spreadText(name: UncertaintyName, s: Spread, u: UnitFormatter): string {
+  const value = (x: number) => (s.relative ? `${significant(x * 100, 3)} %` : spreadValue(name, x, u));
+  if (s.kind === 'normal') return `normal, sd ${value(s.sd)}${s.limit !== undefined ? `, cut at ${significant(s.limit, 3)} sd` : ''}`;
+  return `uniform ${value(s.lo)} to ${value(s.hi)}`;
+}
+
+function vehicleText(sc: Scenario, u: UnitFormatter): string {
+  const v = sc.vehicle;
+  const diameter = Math.sqrt((4 * v.referenceArea) / Math.PI);
+  const cd = v.drag.cd;
+  const drag = cd.length === 1 ? `Cd ${significant(cd[0], 3)}` : `Cd ${significant(Math.min(...cd), 3)} to ${significant(Math.max(...cd), 3)} over Mach ${significant(v.drag.mach[0], 2)} to ${significant(v.drag.mach[v.drag.mach.length - 1], 2)} (${cd.length} points)`;
+  const massWord = v.kind === 'rocket' ? ' without propellant' : '';
+  return `${v.kind}; ${u.mass(v.mass)}${massWord}; reference area ${u.smallArea(v.referenceArea)} (a circle ${u.diameter(diameter)} across); ${drag}`;
+}
+
+function motorText(sc: Scenario, u: UnitFormatter): string | null {
+  const m = sc.vehicle.motor;
+  if (!m) return null;
+  const model = new MotorModel(m);
+  return `total impulse ${u.impulse(model.nominalImpulse)}, burn time ${significant(model.burnTime, 3)} s, propellant ${u.mass(m.propellantMass)}; thrust curve ${m.source}`;
+}
+
+function launchText(sc: Scenario, u: UnitFormatter): string {
+  const l = sc.launch;
+  switch (l.kind) {
+    case 'rocket':
+      return `rail ${u.shortLength(l.rail)}, tilted ${significant(l.tilt, 3)}\u00b0 from vertical toward ${bearingText(l.azimuth)}`;
+    case 'projectile':
+      return `${u.speed(l.speed)} at ${significant(l.elevation, 3)}\u00b0 above the horizontal toward ${bearingText(l.azimuth)}, from ${u.shortLength(l.height)} above the pad`;
+    case 'release': {
+      const offset = l.east === 0 && l.north === 0 ? 'above the pad' : `${u.length(Math.abs(l.east))} ${l.east >= 0 ? 'east' : 'west'} and ${u.length(Math.abs(l.north))} ${l.north >= 0 ? 'north' : 'south'} of the pad`;
+      return `released ${u.length(l.height)} up, ${offset}, moving ${u.speed(l.speed)} toward ${bearingText(l.heading)}`;
+    }
+  }
+}
+
+function recoveryText(sc: Scenario, u: UnitFormatter): string {
+  if (sc.recovery.length === 0) return 'none: falls with its own drag';
+  return sc.recovery
+    .map((s, i) => {
+      const when = s.trigger === 'apogee' ? 'at apogee' : s.trigger === 'altitude' ? `at ${u.length(s.altitude)} on the way down` : `${significant(s.time, 3)} s after launch`;
+      const delay = s.delay > 0 ? ` + ${significant(s.delay, 3)} s` : '';
+      const rate = s.descentRate !== undefined ? `descent ${u.speed(s.descentRate)} at sea level` : `drag area ${u.smallArea(s.dragArea)}`;
+      return `${i + 1}. ${s.name}: ${when}${delay}, ${rate}`;
+    })
+    .join('\n');
+}
+
+function windText(sc: Scenario, u: UnitFormatter): string {
+  const w = sc.weather.wind;
+  let text = w.speed > 0 ? `${u.speed(w.speed)} from ${bearingText(w.from)} at ${u.length(w.height)}` : 'calm';
+  if (w.gust !== undefined) text += `, gusts ${u.speed(w.gust)}`;
+  if (w.profile && w.profile.length > 0) {
+    text += `; profile: ${w.profile.map((r) => `${u.length(r.altitude)}: ${u.speed(r.speed)} from ${Math.round(r.from)}\u00b0`).join(', ')}`;
+  } else {
+    text += `; power-law shear exponent ${significant(w.shear, 2)}`;
+  }
+  text += `; turbulence ${sc.weather.turbulence ? 'on' : 'off'}`;
+  return text;
+}
+
+function airText(sc: Scenario, u: UnitFormatter): string {
+  const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure);
+  const given = sc.weather.temperature !== undefined || sc.weather.pressure !== undefined;
+  return `${u.temperature(air.padTemperature)}, ${u.pressure(air.padPressure)} at the pad (${u.length(sc.site.pad.elevation)} above sea level)${given ? '' : ', standard atmosphere'}`;
+}
+
+function spreadsText(sc: Scenario, u: UnitFormatter): string {
+  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadText(n, sc.uncertainty[n]!, u)}`);
+  return parts.length > 0 ? parts.join('; ') : 'none: every sample flies the nominal flight';
+}
+
+function failuresText(sc: Scenario): string {
+  if (sc.failures.length === 0) return 'none';
+  return sc.failures.map((f) => `${f.name}: ${percent(f.probability)} of flights, ${f.stage === 'all' ? 'no recovery stage deploys' : `stage "${f.stage}" does not deploy`}`).join('; ');
+}
+
+function siteText(sc: Scenario, u: UnitFormatter): string {
+  const s = sc.site;
+  const parts = [`pad ${s.pad.lat.toFixed(5)}\u00b0, ${s.pad.lon.toFixed(5)}\u00b0`];
+  if (s.minimumDistance) parts.push(`minimum distance ${u.length(s.minimumDistance)}`);
+  parts.push(s.boundary ? 'boundary given' : 'no boundary given');
+  parts.push(`${s.areas.length} marked area${s.areas.length === 1 ? '' : 's'}`);
+  return parts.join('; ');
+}
+
+/**
+ * One ingredient of the keep-out zone as the analysis names it ('0.99 density region', 'grown by
+ * 25 m'), with its quantity in the sheet's units.
+ */
+export function keepOutPart(part: string, u: UnitFormatter): string {
+  const level = /^([\d.]+) density region$/.exec(part);
+  if (level) return `${levelText(Number(level[1]))} density region`;
+  const metres = /^(grown by|minimum distance) ([\d.]+) m$/.exec(part);
+  if (metres) return `${metres[1]} ${u.length(Number(metres[2]))}`;
+  return part;
+}
+
+function trimLines(text: string, max: number): string {
+  const lines = text.split('\n');
+  return lines.length <= max ? text : `${lines.slice(0, max).join('\n')} \u2026`;
+}
+
+export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: RecordLimits): Block[] {
+  const { summary: s, scenario: sc, review } = input;
+  const blocks: Block[] = [];
+  if (sc.notes) {
+    const notes = sc.notes.length > limits.noteLines * 110 ? `${sc.notes.slice(0, limits.noteLines * 110)}\u2026 (full notes in scenario.json)` : sc.notes;
+    blocks.push({ kind: 'text', text: trimLines(notes, limits.noteLines) });
+  }
+
+  blocks.push({ kind: 'heading', text: 'Inputs' });
+  const inputs: { label: string; value: string }[] = [
+    { label: 'Site', value: siteText(sc, u) },
+    { label: 'Vehicle', value: vehicleText(sc, u) },
+  ];
+  const motor = motorText(sc, u);
+  if (motor) inputs.push({ label: 'Motor', value: motor });
+  inputs.push({ label: 'Launch', value: launchText(sc, u) });
+  if (sc.vehicle.kind !== 'projectile' || sc.recovery.length > 0) inputs.push({ label: 'Recovery', value: recoveryText(sc, u) });
+  inputs.push(
+    { label: 'Wind', value: windText(sc, u) },
+    { label: 'Air', value: airText(sc, u) },
+    { label: 'Spreads', value: spreadsText(sc, u) },
+    { label: 'Failure modes', value: failuresText(sc) },
+  );
+  blocks.push({ kind: 'rows', rows: inputs });
+
+  blocks.push({ kind: 'heading', text: 'Results' });
+  const landed = s.modes.reduce((sum, m) => sum + (m.landed ?? 0), 0);
+  const modes = s.modes.length > 1 ? `; modes: ${s.modes.map((m) => `${m.name} ${percent(m.probability)} (${grouped(m.samples)} samples)`).join(', ')}, rare modes sampled more often and weighted back` : '';
+  const failed = s.failures.length > 0 ? ` (${s.failures.map((f) => `${grouped(f.samples)} ${f.reason}`).join(', ')})` : '';
+  const spread5 = (x: { p05: number; p50: number; p95: number; max: number }, f: (v: number) => string) => `5 %: ${f(x.p05)}  \u00b7  median ${f(x.p50)}  \u00b7  95 %: ${f(x.p95)}  \u00b7  highest ${f(x.max)}`;
+  const results: { label: string; value: string }[] = [
+    { label: 'Samples', value: `${grouped(s.samples)} flown, ${grouped(landed)} landed, ${grouped(s.failedSamples)} failed${failed}${modes}` },
+    { label: 'Apogee', value: `${spread5(s.apogee_m, (v) => u.length(v))} (above the pad)` },
+    { label: 'Flight time', value: spread5(s.flightTime_s, (v) => (Number.isFinite(v) && v !== null ? `${significant(v, 3)} s` : 'n/a')) },
+  ];
+  if (s.farthestLanding) {
+    const f = s.farthestLanding;
+    results.push({ label: 'Farthest landing', value: `${u.length(f.distance_m)} from the pad toward ${bearingText(f.bearing_deg)} (sample ${f.sample}, ${f.mode})` });
+  }
+  blocks.push({ kind: 'rows', rows: results });
+
+  if (s.contours.length === 0) {
+    blocks.push({ kind: 'text', font: 'bold', text: 'No probability regions and no keep-out zone: too few samples landed to draw them. Run more samples before relying on this sheet.' });
+  } else {
+    blocks.push({
+      kind: 'table',
+      id: 'levels',
+      columns: [
+        { title: 'Region holding', weight: 1.1 },
+        { title: 'Area', weight: 1.3, align: 'right' },
+        { title: 'Farthest from the pad', weight: 1.3, align: 'right' },
+        { title: 'Samples between it and the level inside', weight: 2, align: 'right' },
+      ],
+      rows: s.contours.map((c) => [
+        `${levelText(c.level)} of landings`,
+        u.area(c.area_m2),
+        u.length(c.maxDistance_m),
+        `${grouped(c.samplesInBand)}${c.samplesInBand < MIN_BAND_SAMPLES ? ' (few: line is uncertain)' : ''}`,
+      ]),
+    });
+  }
+
+  const k = input.keepOut?.features[0]?.properties;
+  if (k) {
+    const outside = review.keepOutOutsideBoundary;
+    const boundaryShare = !sc.site.boundary ? 'no site boundary given' : outside ? `${percent(outside.share)} of the zone (${u.area(outside.area_m2)})` : 'not computed';
+    blocks.push({
+      kind: 'rows',
+      rows: [
+        { label: 'Keep-out zone', value: `${u.area(k.area_m2)}, reaching ${u.length(k.maxDistance_m)} from the pad; made of: ${k.parts.map((p) => keepOutPart(p, u)).join(', ')}` },
+        { label: 'Landings outside it', value: `${percent(s.keepOut.outsideShare)} of flights (95 % bound ${percent(s.keepOut.outsideUpper95)})` },
+        { label: 'Zone outside the site', value: boundaryShare },
+      ],
+    });
+    const octants = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'];
+    blocks.push({
+      kind: 'table',
+      id: 'octants',
+      columns: [{ title: 'Keep-out reach by octant', weight: 2.2 }, ...octants.map((o) => ({ title: o, weight: 1, align: 'right' as const }))],
+      rows: [['farthest point from the pad', ...octants.map((o) => (k.octants_m[o] === null || k.octants_m[o] === undefined ? '-' : u.length(k.octants_m[o])))]],
+    });
+  }
+
+  if (sc.site.areas.length > 0 && s.areas.length === 0) {
+    blocks.push({ kind: 'text', text: `Marked areas (${sc.site.areas.map((a) => a.name).join(', ')}) were not assessed: there is no analysis to assess them with.` });
+  }
+  if (s.areas.length > 0) {
+    const byName = new Map(review.areas.map((a) => [a.name, a]));
+    const anyPeople = review.areas.some((a) => a.people !== null);
+    const columns: Column[] = [
+      { title: '#', weight: 0.35 },
+      { title: 'Area', weight: 2.2 },
+      { title: 'Kind', weight: 1.1 },
+      { title: 'Hits', weight: 0.7, align: 'right' },
+      { title: 'Chance per flight', weight: 1.2, align: 'right' },
+      { title: '95 % upper bound', weight: 1.2, align: 'right' },
+      { title: 'Touches zone', weight: 0.9, align: 'right' },
+    ];
+    if (anyPeople) columns.push({ title: 'People', weight: 0.8, align: 'right' }, { title: 'Indicative casualties per flight*', weight: 1.6, align: 'right' });
+    const rows = s.areas.map((a, i) => {
+      const r = byName.get(a.name);
+      const row = [String(i + 1), a.name, a.kind, grouped(a.hits), percent(a.probability), percent(a.upper95), r ? (r.intersectsKeepOut ? 'yes' : 'no') : 'n/a'];
+      if (anyPeople) row.push(r?.people !== null && r?.people !== undefined ? grouped(r.people) : '-', r?.expectedCasualties !== null && r?.expectedCasualties !== undefined ? smallRate(r.expectedCasualties) : '-');
+      return row;
+    });
+    blocks.push({ kind: 'table', id: 'areas', columns, rows });
+    if (anyPeople) {
+      blocks.push({
+        kind: 'text',
+        font: 'italic',
+        text: `* Indicative only, not a compliance figure: landings of modes without a parachute, people spread evenly over the area, ${u.area(review.lethalArea_m2)} assumed lethal area per impact.`,
+      });
+    }
+  }
+
+  const warnings = [...s.warnings, ...s.scenarioWarnings];
+  if (warnings.length > 0) {
+    blocks.push({ kind: 'heading', text: 'Warnings' });
+    const shown = warnings.slice(0, limits.warnings);
+    if (warnings.length > shown.length) shown.push(`${warnings.length - shown.length} more in summary.json`);
+    blocks.push({ kind: 'bullets', items: shown });
+  }
+
+  blocks.push({ kind: 'heading', text: 'Reproducibility' });
+  blocks.push({
+    kind: 'rows',
+    rows: [
+      { label: 'Samples and seed', value: `${grouped(s.samples)} samples, seed ${s.seed}` },
+      { label: 'Scenario hash', value: s.scenarioHash, font: 'mono' },
+      { label: 'Program', value: `strewn ${s.version}; computed ${dateText(review.computedAt)}` },
+    ],
+  });
+  blocks.push({ kind: 'heading', text: 'Review and sign-off' });
+  blocks.push({ kind: 'signoff' });
+  return blocks;
+}

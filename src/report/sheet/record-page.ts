@@ -1,0 +1,276 @@
+/**
+ * The record pages of the sheet: what a safety officer reads and signs. Lays out the blocks from
+ * record-content.ts top to bottom. If they do not fit on one page it tries a tighter type size
+ * (never below 8 pt) and then shortens the notes and the warnings list (both stay whole in the
+ * results files); a record that still does not fit (dozens of areas) continues on further pages
+ * rather than running under the caution box.
+ *
+ * @example
+ *   const pages = buildRecordPages(input, { paper: 'a4', units: 'metric', measure }, 2);
+ */
+import type { FontName, Page, Shape } from './display-list.js';
+import { CAP_HEIGHT, wrapText, type TextMeasure } from './fonts.js';
+import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, type SheetOptions } from './page-parts.js';
+import { INK, INK_SOFT } from './palette.js';
+import { recordBlocks, type Column, type RecordLimits } from './record-content.js';
+import type { SheetInput } from './sheet-input.js';
+import { grouped, unitFormatter } from './units.js';
+import { toWinAnsi } from './winansi.js';
+
+interface Style {
+  size: number;
+  leading: number;
+  headingGap: number;
+  blockGap: number;
+}
+
+const STYLES: Style[] = [
+  { size: 8.5, leading: 1.24, headingGap: 9, blockGap: 5 },
+  { size: 8, leading: 1.18, headingGap: 7, blockGap: 4 },
+];
+
+const LIMITS: RecordLimits[] = [
+  { noteLines: 6, warnings: 12 },
+  { noteLines: 3, warnings: 6 },
+  { noteLines: 1, warnings: 2 },
+];
+
+const LABEL_WIDTH = 92;
+const SIGN_OFF_HEIGHT = 3 * 24 + 6 + 22 + 4;
+
+/** Writes blocks down the page, starting a new page when the next piece would pass `limit`. */
+class Flow {
+  readonly pages: Shape[][] = [[]];
+  y: number;
+
+  constructor(
+    private readonly measure: TextMeasure,
+    private readonly x: number,
+    private readonly width: number,
+    private readonly top: number,
+    private readonly limit: number,
+    private readonly style: Style,
+  ) {
+    this.y = top;
+  }
+
+  private get shapes(): Shape[] {
+    return this.pages[this.pages.length - 1];
+  }
+
+  private get step(): number {
+    return this.style.size * this.style.leading;
+  }
+
+  /** Starts a new page unless `height` still fits on this one (or this page is empty). */
+  private fit(height: number): boolean {
+    if (this.y + height <= this.limit || this.y === this.top) return false;
+    this.pages.push([]);
+    this.y = this.top;
+    return true;
+  }
+
+  private text(text: string, x: number, font: FontName, color = INK, anchor: 'start' | 'end' = 'start', size = this.style.size): void {
+    this.shapes.push({ kind: 'text', x, y: this.y, text, size, font, anchor, color });
+  }
+
+  private rule(color: string, width: number): void {
+    this.shapes.push({ kind: 'path', d: [['M', this.x, this.y], ['L', this.x + this.width, this.y]], stroke: { color, width } });
+  }
+
+  gap(height: number): void {
+    if (this.y > this.top) this.y += height;
+  }
+
+  /** A heading, kept with at least two lines of what follows. */
+  heading(text: string): void {
+    const size = this.style.size + 2;
+    this.fit(this.style.headingGap + size + 4.5 + 3 * this.step);
+    this.gap(this.style.headingGap);
+    this.y += size * CAP_HEIGHT;
+    this.text(text, this.x, 'bold', INK, 'start', size);
+    this.y += 2.5;
+    this.rule(INK, 0.6);
+    this.y += 2;
+  }
+
+  paragraph(text: string, font: FontName = 'regular', indent = 0, color = INK): void {
+    const lines = wrapText(this.measure, toWinAnsi(text), this.style.size, font, this.width - indent);
+    this.fit(lines.length * this.step);
+    this.y += this.style.size * CAP_HEIGHT;
+    lines.forEach((l, i) => {
+      if (i > 0) this.y += this.step;
+      this.text(l, this.x + indent, font, color);
+    });
+    this.y += this.step - this.style.size * CAP_HEIGHT;
+  }
+
+  rows(rows: { label: string; value: string; font?: FontName }[]): void {
+    for (const r of rows) {
+      const lines = wrapText(this.measure, toWinAnsi(r.value), this.style.size, r.font ?? 'regular', this.width - LABEL_WIDTH);
+      this.fit(lines.length * this.step + 1);
+      this.y += this.style.size * CAP_HEIGHT + 1;
+      this.text(toWinAnsi(r.label), this.x, 'bold', INK_SOFT);
+      lines.forEach((l, i) => {
+        if (i > 0) this.y += this.step;
+        this.text(l, this.x + LABEL_WIDTH, r.font ?? 'regular');
+      });
+      this.y += this.step - this.style.size * CAP_HEIGHT;
+    }
+  }
+
+  /** A table with wrapped cells; the header is repeated on a continuation page. */
+  table(id: string, columns: Column[], rows: string[][]): void {
+    const total = columns.reduce((s, c) => s + c.weight, 0);
+    const widths = columns.map((c) => (c.weight / total) * this.width);
+    const lefts = widths.map((_, i) => this.x + widths.slice(0, i).reduce((s, w) => s + w, 0));
+    const gap = 4;
+    const wrapRow = (texts: string[], font: FontName) => texts.map((t, i) => wrapText(this.measure, toWinAnsi(t), this.style.size, font, widths[i] - gap));
+    const rowHeight = (wrapped: string[][]) => Math.max(...wrapped.map((w) => w.length)) * this.step + 1;
+    const drawRow = (wrapped: string[][], font: FontName, color: string) => {
+      const top = this.y;
+      wrapped.forEach((lines, i) => {
+        lines.forEach((l, j) => {
+          this.y = top + this.style.size * CAP_HEIGHT + 1 + j * this.step;
+          const right = columns[i].align === 'right';
+          this.text(l, right ? lefts[i] + widths[i] - gap / 2 : lefts[i] + (i === 0 ? 0 : gap / 2), font, color, right ? 'end' : 'start');
+        });
+      });
+      this.y = top + rowHeight(wrapped);
+    };
+    const header = wrapRow(columns.map((c) => c.title), 'bold');
+    const bodies = rows.map((r) => wrapRow(r, 'regular'));
+    let start = this.shapes.length;
+    let part = 0;
+    const close = () => {
+      const drawn = this.shapes.splice(start);
+      this.shapes.push({ kind: 'group', id: part++ === 0 ? `table-${id}` : `table-${id}-${part}`, className: 'table', shapes: drawn });
+    };
+    const drawHeader = () => {
+      this.y += 2;
+      drawRow(header, 'bold', INK_SOFT);
+      this.rule(INK_SOFT, 0.5);
+      this.y += 1;
+    };
+    this.fit(2 + rowHeight(header) + 1 + (bodies.length > 0 ? rowHeight(bodies[0]) : 0));
+    start = this.shapes.length;
+    drawHeader();
+    bodies.forEach((body, i) => {
+      if (this.y + rowHeight(body) > this.limit) {
+        close();
+        this.fit(Infinity);
+        start = this.shapes.length;
+        drawHeader();
+      } else if (i > 0) {
+        this.rule('#d0d0d0', 0.4);
+      }
+      drawRow(body, 'regular', INK);
+    });
+    close();
+  }
+
+  bullets(items: string[]): void {
+    for (const item of items) {
+      const lines = wrapText(this.measure, toWinAnsi(item), this.style.size, 'regular', this.width - 10);
+      this.fit(lines.length * this.step);
+      this.y += this.style.size * CAP_HEIGHT;
+      this.text('\u2022', this.x + 2, 'regular');
+      this.y -= this.style.size * CAP_HEIGHT;
+      this.paragraph(item, 'regular', 10);
+    }
+  }
+
+  /** Blank lines to write on: who prepared and reviewed the assessment, when, and the decision. */
+  signOff(): void {
+    this.fit(SIGN_OFF_HEIGHT);
+    const rowHeight = 24;
+    const half = (this.width - 20) / 2;
+    const fields: [string, string][] = [
+      ['Prepared by', 'Signature'],
+      ['Reviewed by (safety officer)', 'Signature'],
+      ['Date', 'Decision (go / go with conditions / no go)'],
+    ];
+    const shapes: Shape[] = [];
+    for (const pair of fields) {
+      this.y += rowHeight - 8;
+      pair.forEach((label, i) => {
+        const x = this.x + i * (half + 20);
+        shapes.push({ kind: 'path', className: 'signoff-line', d: [['M', x, this.y], ['L', x + half, this.y]], stroke: { color: INK, width: 0.7 } });
+        shapes.push({ kind: 'text', x, y: this.y + 8.5, text: label, size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
+      });
+      this.y += 8;
+    }
+    this.y += 6;
+    shapes.push({ kind: 'text', x: this.x, y: this.y + 8 * CAP_HEIGHT, text: 'Conditions and notes:', size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
+    this.y += 8 + 14;
+    shapes.push({ kind: 'path', className: 'signoff-line', d: [['M', this.x, this.y], ['L', this.x + this.width, this.y]], stroke: { color: INK, width: 0.7 } });
+    this.y += 4;
+    this.shapes.push({ kind: 'group', id: 'sign-off', shapes });
+  }
+}
+
+function particulars(input: SheetInput): string {
+  const s = input.summary;
+  return ['Review record', `${grouped(s.samples)} samples, seed ${s.seed}`, `computed ${dateText(input.review.computedAt)}`, `strewn ${s.version}`].join('  \u00b7  ');
+}
+
+/** Lays the record out; returns the body shapes of each page. */
+function layout(input: SheetInput, options: SheetOptions, style: Style, limits: RecordLimits, top: number, limit: number): Shape[][] {
+  const width = PAPER_SIZES[options.paper].width - 2 * MARGIN;
+  const flow = new Flow(options.measure, MARGIN, width, top, limit, style);
+  for (const block of recordBlocks(input, unitFormatter(options.units), limits)) {
+    switch (block.kind) {
+      case 'heading':
+        flow.heading(block.text);
+        break;
+      case 'text':
+        flow.gap(style.blockGap / 2);
+        flow.paragraph(block.text, block.font ?? 'regular', 0, block.font === 'italic' ? INK_SOFT : INK);
+        break;
+      case 'rows':
+        flow.rows(block.rows);
+        break;
+      case 'table':
+        flow.gap(style.blockGap / 2);
+        flow.table(block.id, block.columns, block.rows);
+        break;
+      case 'bullets':
+        flow.bullets(block.items);
+        break;
+      case 'signoff':
+        flow.signOff();
+        break;
+    }
+  }
+  return flow.pages;
+}
+
+/**
+ * The record as one page when it fits in any of the tighter settings, else as several pages at the
+ * compact size. `firstPage` is the record's first page number; `totalPages` is filled in by the
+ * caller through `pageLabels` once the map page is counted.
+ */
+export function buildRecordPages(input: SheetInput, options: SheetOptions, firstPage: number, pagesBefore = firstPage - 1): Page[] {
+  const paper = PAPER_SIZES[options.paper];
+  const width = paper.width - 2 * MARGIN;
+  const probe = titleBlock(input.summary.name, particulars(input), 'Page 9 of 9', MARGIN, MARGIN, width, options.measure);
+  const top = probe.bottom + 4;
+  const caution = cautionHeight(width, options.measure);
+  const limit = paper.height - MARGIN - caution - 6;
+  let bodies: Shape[][] | null = null;
+  search: for (const limits of LIMITS) {
+    for (const style of STYLES) {
+      const pages = layout(input, options, style, limits, top, limit);
+      if (pages.length === 1) {
+        bodies = pages;
+        break search;
+      }
+    }
+  }
+  bodies ??= layout(input, options, STYLES[STYLES.length - 1], LIMITS[0], top, limit);
+  const total = pagesBefore + bodies.length;
+  return bodies.map((body, i) => {
+    const title = titleBlock(input.summary.name, particulars(input), `Page ${firstPage + i} of ${total}`, MARGIN, MARGIN, width, options.measure);
+    return { width: paper.width, height: paper.height, shapes: [...title.shapes, ...body, ...cautionBox(MARGIN, paper.height - MARGIN - caution, width, options.measure).shapes] };
+  });
+}
