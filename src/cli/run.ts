@@ -1,7 +1,7 @@
 import { basename, extname, join } from 'node:path';
-import { availableParallelism } from 'node:os';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
-import { executeInThread } from '../dispersion/execute.js';
+import { runInPool } from '../pool/pool.js';
+import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
 import { analyze } from '../analysis/index.js';
 import { landingSetFromRun } from '../analysis/from-run.js';
 import { buildResultFiles } from '../report/result-files.js';
@@ -54,7 +54,7 @@ export async function runCommand(args: string[]): Promise<number> {
   const path = onePositional('run', positionals, 'scenario file');
   const maxSamples = integerOption('max-samples', values['max-samples'] as string | undefined, 1, Number.MAX_SAFE_INTEGER) ?? DEFAULT_MAX_SAMPLES;
   const samplesOption = integerOption('samples', values.samples as string | undefined, 1, maxSamples, maxSamples === DEFAULT_MAX_SAMPLES ? ' (--max-samples lifts the cap)' : '');
-  const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? availableParallelism();
+  const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
   const seedOption = values.seed as string | undefined;
   if (seedOption !== undefined && seedOption.length === 0) throw new UsageError('--seed: expected a non-empty text');
   const quiet = values.quiet === true;
@@ -65,6 +65,7 @@ export async function runCommand(args: string[]): Promise<number> {
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
   const outDir = (values.out as string | undefined) ?? join('results', basename(path, extname(path)));
+  const createWorker = nodeWorkerFactory();
   const out = OutputFolder.prepare(outDir, values.force === true);
   if (!quiet && !json) printWarnings(loaded.warnings);
 
@@ -74,14 +75,18 @@ export async function runCommand(args: string[]): Promise<number> {
   process.once('SIGTERM', onSignal);
   const bar = progressBar(process.stderr, !quiet);
   try {
-    void workers; // one thread until the worker pool lands; the flag keeps its meaning
-    const run = await executeInThread(scenario, { samples, seed, signal: controller.signal, onProgress: (p) => bar.update(p) });
+    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: controller.signal, onProgress: (p) => bar.update(p) });
     bar.end();
     const set = landingSetFromRun(run, scenario);
     const analysis = set.east.length >= 10 ? analyze(set, scenario.site, scenario.run) : null;
     const sensitivity = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0 ? studySensitivity(scenario, run) : undefined;
     const summary = buildRunSummary(scenario, loaded.hash, run, analysis, loaded.warnings, sensitivity);
     for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
+    // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
+    // event loop: two turns (one is not enough) let it reach its handler; honour it before the
+    // results appear.
+    for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
+    controller.signal.throwIfAborted();
     out.commit();
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));

@@ -4,6 +4,7 @@
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { demoScenarios, measureEngine } from './engine.js';
+import { poolBench } from './pool.js';
 
 const root = join(fileURLToPath(import.meta.url), '../../../..');
 const seconds = Number(process.env.BENCH_SECONDS ?? 3);
@@ -16,3 +17,6 @@ for (const { name, scenario } of demoScenarios(join(root, 'scenarios'))) {
     `${name.padEnd(28)} ${f.flightsPerSecond.toFixed(0).padStart(9)}   ${String(f.medianSteps).padStart(12)}   ${f.maxLandingError_m.toFixed(3).padStart(22)} m   ${f.odexFlightsPerSecond.toFixed(1).padStart(14)}`,
   );
 }
+
+console.log('');
+await poolBench(root);

@@ -1,0 +1,127 @@
+import { basename, extname, join } from 'node:path';
+import { runInPool } from '../pool/pool.js';
+import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
+import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
+import { rangeValues } from '../envelope/grid.js';
+import { windEnvelope } from '../envelope/envelope.js';
+import { writeEnvelopeCsv, writeEnvelopeJson } from '../envelope/writers.js';
+import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
+import { CAUTION } from '../report/caution.js';
+import { VERSION } from '../version.js';
+import { parseCommandArgs, integerOption, onePositional } from './args.js';
+import { OutputFolder } from './output-folder.js';
+import { progressBar } from './progress.js';
+import { loadForCommand, printWarnings } from './scenario-input.js';
+import { UsageError } from './errors.js';
+
+export const ENVELOPE_HELP = `Usage: strewn envelope <scenario.json> [options]
+
+For every wind direction (from) and mean wind speed on a grid, flies the scenario's dispersion
+(its spreads and failure modes, the same random numbers at every point), builds the keep-out zone
+and tests it: inside site.boundary, and clear of every area of kind spectators, parking, road or
+building. Reports, per direction, the highest speed at which every test holds and the test that
+fails first above it. Writes envelope.json, envelope.csv and envelope.svg.
+
+Options:
+  --directions A:B:S  wind directions in degrees, start:stop:step (default 0:330:30)
+  --speeds A:B:S      mean wind speeds in m/s at the reference height (default 0:14:1)
+  --samples N         samples per grid point (default: the scenario's run.samples)
+  --seed S            random seed (default: the scenario's run.seed)
+  --workers W         worker threads (default: the number of CPU cores)
+  --exhaustive        fly every grid point instead of bisecting each direction's speeds
+  --units U           metric or imperial, for the chart (default metric)
+  --out DIR           results folder (default: results/<scenario file name>-envelope)
+  --force             replace DIR if it is not empty
+  --quiet             print nothing but errors
+  --json              print the limits as JSON on stdout
+  -h, --help          this help
+`;
+
+function grid(option: string, text: string): number[] {
+  const values = rangeValues(text);
+  if (typeof values === 'string') throw new UsageError(`--${option}: ${values}`);
+  return values;
+}
+
+export async function envelopeCommand(args: string[]): Promise<number> {
+  const { values, positionals } = parseCommandArgs('envelope', args, {
+    directions: { type: 'string' },
+    speeds: { type: 'string' },
+    samples: { type: 'string' },
+    seed: { type: 'string' },
+    workers: { type: 'string' },
+    exhaustive: { type: 'boolean' },
+    units: { type: 'string' },
+    out: { type: 'string' },
+    force: { type: 'boolean' },
+    quiet: { type: 'boolean' },
+    json: { type: 'boolean' },
+  });
+  if (values.help) {
+    process.stdout.write(ENVELOPE_HELP);
+    return 0;
+  }
+  const path = onePositional('envelope', positionals, 'scenario file');
+  const directions = grid('directions', (values.directions as string | undefined) ?? '0:330:30');
+  if (directions.some((d) => d >= 360)) throw new UsageError(`--directions: ${directions[directions.length - 1]} is 360° or more; expected directions below 360`);
+  const speeds = grid('speeds', (values.speeds as string | undefined) ?? '0:14:1');
+  if (speeds[0] < 0) throw new UsageError(`--speeds: ${speeds[0]} m/s is negative`);
+  const samplesOption = integerOption('samples', values.samples as string | undefined, 10, DEFAULT_MAX_SAMPLES);
+  const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
+  const units = (values.units as string | undefined) ?? 'metric';
+  if (units !== 'metric' && units !== 'imperial') throw new UsageError(`--units: '${units}'; expected metric or imperial`);
+  const quiet = values.quiet === true;
+  const json = values.json === true;
+
+  const loaded = loadForCommand(path);
+  const scenario = loaded.scenario;
+  const samples = samplesOption ?? scenario.run.samples;
+  const seed = (values.seed as string | undefined) ?? scenario.run.seed;
+  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), values.force === true);
+  if (!quiet && !json) printWarnings(loaded.warnings);
+
+  const controller = new AbortController();
+  const onSignal = () => controller.abort(Object.assign(new Error('cancelled'), { name: 'AbortError' }));
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
+  const bar = progressBar(process.stderr, !quiet);
+  const createWorker = nodeWorkerFactory();
+  const started = Date.now();
+  try {
+    const result = await windEnvelope(scenario, {
+      directions,
+      speeds,
+      samples,
+      seed,
+      exhaustive: values.exhaustive === true,
+      signal: controller.signal,
+      execute: (sc, n, s, signal) => runInPool({ scenario: sc, samples: n, seed: s }, { workers, createWorker, signal }),
+      onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
+    });
+    bar.end();
+    const extra = { version: VERSION, scenarioHash: loaded.hash, caution: CAUTION };
+    out.write('envelope.json', writeEnvelopeJson(result, extra));
+    out.write('envelope.csv', writeEnvelopeCsv(result));
+    out.write('envelope.svg', envelopeChart(result, { units, caution: CAUTION }));
+    out.commit();
+    if (json) process.stdout.write(JSON.stringify({ ...extra, limits: result.limits.map(({ cases: _c, ...d }) => d) }, null, 2) + '\n');
+    else if (!quiet) process.stdout.write(formatEnvelope(result, out.destination));
+    return 0;
+  } finally {
+    bar.end();
+    out.discard();
+    process.off('SIGINT', onSignal);
+    process.off('SIGTERM', onSignal);
+  }
+}
+
+function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string): string {
+  const lines = [`${e.name}: wind limits (${e.samples.toLocaleString('en')} samples per point, ${e.casesFlown} points flown in ${e.elapsed_s.toFixed(1)} s)`];
+  for (const d of e.limits) {
+    const limit = d.limit === null ? `fails already at ${e.speeds[0]} m/s` : `${d.aboveGrid ? 'at least ' : 'up to '}${d.limit} m/s`;
+    lines.push(`  from ${String(d.from).padStart(3)}°  ${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
+  }
+  lines.push(`  forecast     ${forecastVerdict(e).text}`);
+  lines.push(`  results      ${folder}`, '', `CAUTION: ${CAUTION}`, '');
+  return lines.join('\n');
+}

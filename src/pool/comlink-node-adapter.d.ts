@@ -1,0 +1,2 @@
+// comlink ships its Node adapter as .mjs without a matching .d.mts; this states its one export.
+declare module 'comlink/dist/esm/node-adapter.mjs' { export default function nodeEndpoint(port: { postMessage(message: any, transfer?: any[]): void; on(type: string, listener: (...args: any[]) => void): void; off(type: string, listener: (...args: any[]) => void): void; start?: () => void }): import('comlink').Endpoint; }

@@ -1,0 +1,126 @@
+import { chunkRanges, defaultChunkSize, type Progress } from '../dispersion/execute.js';
+import { planModes } from '../dispersion/modes.js';
+import { assembleChunks, type RunResult } from '../dispersion/results.js';
+import type { ChunkResult } from '../dispersion/runner.js';
+import { ChunkFailedError, cancelledError } from './errors.js';
+import type { EngineJob, PoolWorker, PoolWorkerFactory } from './protocol.js';
+
+/**
+ * The worker pool, independent of where it runs: the Node and browser adapters supply the workers.
+ * Samples are split into chunks of consecutive indices; each worker takes the next chunk as soon
+ * as it is free, and the results are placed by sample index, so the outcome never depends on the
+ * number of workers or on which worker finished first.
+ */
+
+export interface PoolOptions {
+  /** Most workers to use; fewer are started when there are fewer chunks. */
+  workers: number;
+  createWorker: PoolWorkerFactory;
+  /** Samples per chunk (default: `defaultChunkSize`). */
+  chunkSize?: number;
+  /** Called after every finished chunk. */
+  onProgress?: (p: Progress) => void;
+  /** Aborting stops every worker at once; the run then rejects with the signal's reason. */
+  signal?: AbortSignal;
+}
+
+export async function runInPool(job: EngineJob, options: PoolOptions): Promise<RunResult> {
+  const { samples, seed } = job;
+  if (!Number.isInteger(options.workers) || options.workers < 1) throw new RangeError(`workers: expected a whole number of at least 1, got ${options.workers}`);
+  const signal = options.signal;
+  if (signal?.aborted) throw signal.reason ?? cancelledError();
+
+  const chunkSize = options.chunkSize ?? defaultChunkSize(samples, options.workers);
+  const ranges = chunkRanges(samples, chunkSize);
+  const laneCount = Math.min(options.workers, ranges.length);
+  const finished: ChunkResult[] = [];
+  const live = new Set<PoolWorker>();
+  const started = Date.now();
+  let nextRange = 0;
+  let done = 0;
+
+  // Settles (rejects) once, on cancellation or on the first failure that ends the run; every
+  // wait below races against it, so no lane keeps waiting on a worker that is being stopped.
+  let halted = false;
+  let haltReason: unknown;
+  let halt!: (reason: unknown) => void;
+  const halting = new Promise<never>((_, reject) => {
+    halt = (reason) => {
+      if (halted) return;
+      halted = true;
+      haltReason = reason;
+      reject(reason);
+      for (const worker of live) worker.terminate();
+      live.clear();
+    };
+  });
+  halting.catch(() => {});
+  const onAbort = () => halt(signal?.reason ?? cancelledError());
+  signal?.addEventListener('abort', onAbort, { once: true });
+
+  const retire = (worker: PoolWorker) => {
+    if (live.delete(worker)) worker.terminate();
+  };
+  const answer = <T>(call: Promise<T>, worker: PoolWorker): Promise<T> => Promise.race([call, worker.stopped, halting]);
+
+  const lane = async (): Promise<void> => {
+    let worker: PoolWorker | null = null;
+
+    /** Flies one chunk; after a failure, once more on a fresh worker, since the old one is not trusted. */
+    const fly = async (start: number, count: number): Promise<ChunkResult> => {
+      let firstCause: unknown;
+      for (let attempt = 0; ; attempt++) {
+        try {
+          if (!worker) {
+            worker = options.createWorker();
+            live.add(worker);
+            await answer(worker.engine.start(job), worker);
+          }
+          const chunk = await answer(worker.engine.runChunk(start, count, attempt), worker);
+          checkChunk(chunk, start, count);
+          return chunk;
+        } catch (cause) {
+          if (halted) throw cause;
+          if (worker) retire(worker);
+          worker = null;
+          if (attempt > 0) throw new ChunkFailedError(start, count, firstCause, cause);
+          firstCause = cause;
+        }
+      }
+    };
+
+    try {
+      while (nextRange < ranges.length && !halted) {
+        const [start, count] = ranges[nextRange++];
+        finished.push(await fly(start, count));
+        done += count;
+        options.onProgress?.({ done, total: samples, rate: done / Math.max(1e-3, (Date.now() - started) / 1000) });
+      }
+    } catch (error) {
+      halt(error);
+      throw error;
+    } finally {
+      if (worker) retire(worker);
+    }
+  };
+
+  try {
+    await Promise.all(Array.from({ length: laneCount }, lane));
+  } catch (error) {
+    // The first failure (or the cancellation) is what the caller hears about.
+    throw halted ? haltReason : error;
+  } finally {
+    signal?.removeEventListener('abort', onAbort);
+    for (const worker of live) worker.terminate();
+    live.clear();
+  }
+  return assembleChunks(samples, finished, planModes(job.scenario.failures, samples), seed);
+}
+
+/** A worker that answers with the wrong samples must not slip through into the results. */
+function checkChunk(chunk: ChunkResult, start: number, count: number): void {
+  const arrays = [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.mode, chunk.status, chunk.steps];
+  if (chunk.start !== start || chunk.count !== count || arrays.some((a) => a.length !== count)) {
+    throw new Error(`worker answered samples ${chunk.start}+${chunk.count} (arrays of ${arrays.map((a) => a.length).join('/')}) for ${start}+${count}`);
+  }
+}

@@ -1,0 +1,128 @@
+import { createServer, type Server } from 'node:http';
+import { readFile, stat } from 'node:fs/promises';
+import { extname, join, normalize, resolve, sep } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { build } from 'vite';
+
+/**
+ * What the browser tests share: building the page with Vite, a tiny static server on 127.0.0.1,
+ * and Debian's chromium driven through playwright-core, with every request that leaves the
+ * machine blocked and every console error recorded.
+ */
+
+export const PROJECT = resolve(fileURLToPath(new URL('../..', import.meta.url)));
+export const ARTIFACTS = join(PROJECT, 'test', '.artifacts', 'web');
+
+/** Builds the page into `outDir` with the project's vite.config.ts (the same as npm run build:web). */
+export async function buildWebApp(outDir: string): Promise<void> {
+  await build({ configFile: join(PROJECT, 'vite.config.ts'), logLevel: 'warn', build: { outDir, emptyOutDir: true } });
+}
+
+const TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript',
+  '.mjs': 'text/javascript',
+  '.css': 'text/css',
+  '.json': 'application/json',
+  '.woff2': 'font/woff2',
+  '.woff': 'font/woff',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+};
+
+export interface StaticServer {
+  url: string;
+  close(): Promise<void>;
+}
+
+/** Serves a folder on 127.0.0.1 at a free port; `prefix` puts it in a sub-folder (tests relative paths). */
+export async function serveStatic(root: string, prefix = '/'): Promise<StaticServer> {
+  const base = resolve(root);
+  const server: Server = createServer(async (request, response) => {
+    const path = decodeURIComponent(new URL(request.url ?? '/', 'http://x').pathname);
+    if (!path.startsWith(prefix)) {
+      response.writeHead(404).end();
+      return;
+    }
+    let file = normalize(join(base, path.slice(prefix.length)));
+    if (file !== base && !file.startsWith(base + sep)) {
+      response.writeHead(403).end();
+      return;
+    }
+    try {
+      if ((await stat(file)).isDirectory()) file = join(file, 'index.html');
+      const body = await readFile(file);
+      response.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' }).end(body);
+    } catch {
+      response.writeHead(404).end();
+    }
+  });
+  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
+  const address = server.address();
+  if (address === null || typeof address === 'string') throw new Error('server has no port');
+  return {
+    url: `http://127.0.0.1:${address.port}${prefix}`,
+    close: () => new Promise<void>((done) => server.close(() => done())),
+  };
+}
+
+export function launchChromium(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+}
+
+/** Console noise of the browser itself, not of the page (see /work/shared/browser.md). */
+const HARMLESS = [/GPU stall due to ReadPixels/i, /unexpected operator/i, /dbus/i];
+
+export interface WatchedPage {
+  context: BrowserContext;
+  page: Page;
+  /** Console errors and uncaught page errors so far. */
+  errors: string[];
+  /** Requests to anything but 127.0.0.1 (all blocked). */
+  offsite: string[];
+}
+
+/** A fresh context and page that may talk only to 127.0.0.1, with its errors collected. */
+export async function watchedPage(browser: Browser, viewport = { width: 1400, height: 900 }): Promise<WatchedPage> {
+  const context = await browser.newContext({ viewport, acceptDownloads: true });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  const offsite: string[] = [];
+  await context.route('**/*', (route) => {
+    const url = new URL(route.request().url());
+    if (url.protocol === 'data:' || url.protocol === 'blob:' || url.hostname === '127.0.0.1') return route.continue();
+    offsite.push(url.href);
+    return route.abort('blockedbyclient');
+  });
+  page.on('console', (message) => {
+    if (message.type() === 'error' && !HARMLESS.some((h) => h.test(message.text()))) errors.push(message.text());
+  });
+  page.on('pageerror', (error) => errors.push(`page error: ${error.message}`));
+  return { context, page, errors, offsite };
+}
+
+/** Waits until the map has drawn everything it was given (the page's test hook). */
+export async function mapIdle(page: Page): Promise<void> {
+  await page.waitForFunction(() => window.__strewn !== undefined);
+  await page.evaluate(() => window.__strewn!.idle());
+}
+
+/** Presses Run and waits until the run has finished (or failed, which the caller checks). */
+export async function runAndWait(page: Page, timeout = 120_000): Promise<string> {
+  await page.locator('[data-test="run"]').click();
+  await page.waitForFunction(() => ['finished', 'failed', 'cancelled'].includes(window.__strewn!.run().phase), null, { timeout });
+  return page.evaluate(() => window.__strewn!.run().phase);
+}
+
+/** Sets a field on the Setup tab by its scenario path and commits it (as leaving the box does). */
+export async function setField(page: Page, path: string, value: string): Promise<void> {
+  await page.locator('[data-tab="setup"]').click();
+  const input = page.locator(`input[data-path="${path}"]`);
+  await input.fill(value);
+  await input.press('Enter');
+}

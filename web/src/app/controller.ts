@@ -1,0 +1,167 @@
+import { baseName, documentText, withValue, type FieldPath, type ScenarioDocument } from '../scenario/document.js';
+import { DEMOS } from '../scenario/demos.js';
+import { keepWorkspace } from '../scenario/persist.js';
+import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenario/read-files.js';
+import { validateDocument } from '../scenario/validate.js';
+import { composeStudy } from '../study/compose.js';
+import { redrawReviewSheet } from '../study/review-sheet.js';
+import { isCancellation, runEngine } from '../study/engine.js';
+import { download } from '../exports/download.js';
+import type { Background } from '../map/tiles.js';
+import type { LayerGroup } from '../map/style.js';
+import type { MapView } from '../map/view.js';
+import type { Actions } from '../panels/actions.js';
+import type { UnitSystem } from '../units/systems.js';
+import type { Store } from './store.js';
+import { keepUnits } from './preferences.js';
+
+/** Carries out what the panels ask for, on the page's one store. */
+export class Controller implements Actions {
+  private running: AbortController | null = null;
+  mapView: MapView | null = null;
+
+  constructor(private readonly store: Store) {}
+
+  /** Takes an edited draft: if it validates it becomes the scenario, otherwise its problems show. */
+  private applyDraft(draft: ScenarioDocument): void {
+    const validation = validateDocument(draft);
+    if (validation.ok) this.store.update({ draft, accepted: validation.accepted, draftIssues: [] });
+    else this.store.update({ draft, draftIssues: validation.issues });
+    this.keep();
+  }
+
+  private keep(): void {
+    const { draft, accepted } = this.store.get();
+    keepWorkspace({ draft, accepted: accepted.document });
+  }
+
+  editField(path: FieldPath, value: unknown): void {
+    this.applyDraft(withValue(this.store.get().draft, path, value));
+  }
+
+  /** A pad dragged on the map; 7 decimals of a degree is about a centimetre. */
+  movePad(lon: number, lat: number): void {
+    const round = (x: number) => Number(x.toFixed(7));
+    const draft = withValue(withValue(this.store.get().draft, ['site', 'pad', 'lat'], round(lat)), ['site', 'pad', 'lon'], round(lon));
+    this.applyDraft(draft);
+  }
+
+  private take(outcome: OpenOutcome): void {
+    if (outcome.ok) {
+      // Results of another scenario (perhaps another site) would only mislead next to this one.
+      this.running?.abort();
+      const state = this.store.get();
+      this.store.update({
+        draft: outcome.accepted.document,
+        accepted: outcome.accepted,
+        draftIssues: [],
+        refused: null,
+        documentVersion: state.documentVersion + 1,
+        study: null,
+        run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
+      });
+      this.keep();
+    } else {
+      this.store.update({ refused: { fileName: outcome.fileName, issues: outcome.issues } });
+    }
+  }
+
+  async openFiles(files: readonly File[]): Promise<void> {
+    this.take(await openScenarioFiles(files));
+  }
+
+  openDemo(id: string): void {
+    const demo = DEMOS.find((d) => d.id === id);
+    if (demo) this.take(openScenarioText(demo.text, demo.fileName, { ...demo.files }));
+  }
+
+  dismissRefused(): void {
+    this.store.update({ refused: null });
+  }
+
+  saveScenario(): void {
+    const { draft, draftIssues } = this.store.get();
+    if (draftIssues.length === 0) download(draft.fileName, documentText(draft));
+  }
+
+  saveAttachedFile(path: string): void {
+    const text = this.store.get().accepted.document.files[path];
+    if (text !== undefined) download(baseName(path), text);
+  }
+
+  async run(): Promise<void> {
+    const state = this.store.get();
+    if (this.running || state.draftIssues.length > 0) return;
+    const accepted = state.accepted;
+    const { samples, seed } = accepted.scenario.run;
+    const controller = new AbortController();
+    this.running = controller;
+    const started = performance.now();
+    this.store.update({ run: { phase: 'running', done: 0, total: samples, rate: 0, message: '' } });
+    try {
+      const result = await runEngine(accepted.scenario, {
+        samples,
+        seed,
+        signal: controller.signal,
+        onProgress: (p) => this.store.update({ run: { phase: 'running', done: p.done, total: p.total, rate: p.rate, message: '' } }),
+      });
+      const flightTime = performance.now() - started;
+      const rate = samples / Math.max(1e-3, flightTime / 1000);
+      this.store.update({ run: { phase: 'analysing', done: samples, total: samples, rate, message: '' } });
+      // Let the page show "analysing" before the analysis takes this thread for a moment.
+      await new Promise((resolve) => setTimeout(resolve, 30));
+      const study = await composeStudy(accepted, result, flightTime);
+      // Cancelled while analysing, or a new scenario was opened (which cancels the run): these
+      // results are not wanted.
+      if (controller.signal.aborted) {
+        const run = this.store.get().run;
+        if (run.phase === 'analysing') this.store.update({ run: { ...run, phase: 'cancelled' } });
+        return;
+      }
+      this.store.update({ study, run: { phase: 'finished', done: samples, total: samples, rate, message: '' } });
+    } catch (error) {
+      const run = this.store.get().run;
+      if (isCancellation(error)) {
+        if (run.phase === 'running') this.store.update({ run: { ...run, phase: 'cancelled' } });
+      } else this.store.update({ run: { ...run, phase: 'failed', message: error instanceof Error ? error.message : String(error) } });
+    } finally {
+      this.running = null;
+    }
+  }
+
+  cancel(): void {
+    this.running?.abort();
+  }
+
+  setUnits(units: UnitSystem): void {
+    this.store.update({ units });
+    keepUnits(units);
+  }
+
+  exportFile(name: string): void {
+    const study = this.store.get().study;
+    if (!study) return;
+    if (name === 'scenario') {
+      download(study.accepted.document.fileName, documentText(study.accepted.document));
+      return;
+    }
+    const file = study.files.find((f) => f.name === name);
+    if (file) download(file.name, file.blob);
+  }
+
+  /** The review sheet in the page's units on the paper chosen (the CLI's own is metric A4). */
+  async exportReviewSheet(paper: 'a4' | 'letter'): Promise<void> {
+    const { study, units } = this.store.get();
+    if (!study) return;
+    download(`sheet-${units}-${paper}.pdf`, await redrawReviewSheet(study, paper, units));
+  }
+
+  setBackground(background: Background): Promise<string> {
+    if (!this.mapView) return Promise.reject(new Error('the map is not available in this browser'));
+    return this.mapView.setBackground(background);
+  }
+
+  setLayerVisible(group: LayerGroup, visible: boolean): void {
+    this.mapView?.setLayerVisible(group, visible);
+  }
+}

@@ -1,0 +1,21 @@
+import type { FieldPath } from '../scenario/document.js';
+import type { LayerGroup } from '../map/style.js';
+import type { UnitSystem } from '../units/systems.js';
+import type { Background } from '../map/tiles.js';
+
+/** What the panels can ask the page to do; app/controller.ts carries these out. */
+export interface Actions {
+  editField(path: FieldPath, value: unknown): void;
+  openFiles(files: readonly File[]): Promise<void>;
+  openDemo(id: string): void;
+  dismissRefused(): void;
+  saveScenario(): void;
+  saveAttachedFile(path: string): void;
+  run(): void;
+  cancel(): void;
+  setUnits(units: UnitSystem): void;
+  exportFile(name: string): void;
+  exportReviewSheet(paper: 'a4' | 'letter'): Promise<void>;
+  setBackground(background: Background): Promise<string>;
+  setLayerVisible(group: LayerGroup, visible: boolean): void;
+}

@@ -1,0 +1,73 @@
+import type { AppState, Store } from '../app/store.js';
+import type { Actions } from './actions.js';
+import { el, replaceChildren } from './dom.js';
+
+/**
+ * The "Files" tab: every file of the command line's results folder for the last run, with the
+ * same names and bytes (built by the same writers in src/report), and the scenario that made them.
+ */
+
+const DESCRIPTIONS: Record<string, string> = {
+  'sheet.pdf': 'Review sheet for the safety officer: map and record to sign (PDF)',
+  'map.svg': 'The review sheet\u2019s map alone (SVG)',
+  'landings.csv': 'Landing points, one row per sample (CSV)',
+  'summary.json': 'Run summary (JSON)',
+  'landings.geojson': 'Landing points (GeoJSON)',
+  'contours.geojson': 'Probability regions (GeoJSON)',
+  'keepout.geojson': 'Keep-out zone (GeoJSON)',
+  'areas.csv': 'Marked areas and their probabilities (CSV)',
+  'result.kml': 'Regions, zone and areas for map viewers (KML)',
+  'scenario.json': 'The scenario as the engine read it, in SI units (JSON)',
+  'review.json': 'Figures the review sheet needs beyond the summary (JSON)',
+};
+
+/** The review sheet first: it is what most people came for. */
+const FIRST = ['sheet.pdf', 'map.svg'];
+
+export function exportPanel(store: Store, actions: Actions): HTMLElement {
+  const list = el('ul', { class: 'export-list', data: { test: 'exports' } });
+  const render = (state: AppState) => {
+    const study = state.study;
+    if (study === null) {
+      replaceChildren(list, el('li', { class: 'muted', text: 'Run the scenario to get its result files.' }));
+      sheetRow.hidden = true;
+      return;
+    }
+    const names = study.files.map((f) => f.name).sort((a, b) => rank(a) - rank(b));
+    const items: HTMLElement[] = names.map((name) => {
+      const button = el('button', { text: name, attrs: { type: 'button' }, data: { export: name } });
+      button.addEventListener('click', () => actions.exportFile(name));
+      return el('li', {}, button, el('span', { class: 'muted', text: ` ${DESCRIPTIONS[name] ?? ''}` }));
+    });
+    if (study.filesError !== null) items.unshift(el('li', { class: 'alert', attrs: { role: 'alert' }, text: `The result files could not be made: ${study.filesError}` }));
+    const own = el('button', { text: study.accepted.document.fileName, attrs: { type: 'button' }, data: { export: 'scenario' } });
+    own.addEventListener('click', () => actions.exportFile('scenario'));
+    items.push(el('li', {}, own, el('span', { class: 'muted', text: ' The scenario file these results came from, in your units (JSON)' })));
+    replaceChildren(list, ...items);
+    sheetRow.hidden = study.filesError !== null;
+  };
+
+  // The sheet again on another paper size, in the units chosen at the top of the page.
+  const paper = el('select', { attrs: { id: 'sheet-paper', 'aria-label': 'Paper size of the review sheet' } }, el('option', { text: 'A4', attrs: { value: 'a4' } }), el('option', { text: 'US Letter', attrs: { value: 'letter' } }));
+  const redraw = el('button', { text: 'Review sheet in the page\u2019s units', attrs: { type: 'button' }, data: { export: 'sheet-redrawn' } });
+  const sheetStatus = el('span', { class: 'muted', attrs: { role: 'status' } });
+  redraw.addEventListener('click', () => {
+    sheetStatus.textContent = ' drawing…';
+    actions.exportReviewSheet(paper.value === 'letter' ? 'letter' : 'a4').then(
+      () => (sheetStatus.textContent = ''),
+      (error: unknown) => (sheetStatus.textContent = ` failed: ${error instanceof Error ? error.message : String(error)}`),
+    );
+  });
+  const sheetRow = el('div', { class: 'row' }, redraw, el('label', { text: 'on', attrs: { for: 'sheet-paper' } }), paper, sheetStatus);
+  sheetRow.hidden = true;
+  store.subscribe((state, previous) => {
+    if (state.study !== previous.study) render(state);
+  });
+  render(store.get());
+  return el('section', { class: 'panel-section', attrs: { 'aria-label': 'Files' } }, el('p', { class: 'note', text: 'The same files as the command line\u2019s results folder, made here in the page; nothing is sent anywhere.' }), list, sheetRow);
+}
+
+function rank(name: string): number {
+  const i = FIRST.indexOf(name);
+  return i === -1 ? FIRST.length : i;
+}

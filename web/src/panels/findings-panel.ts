@@ -1,0 +1,106 @@
+import { studyIsCurrent, type AppState, type Store } from '../app/store.js';
+import type { Study } from '../study/compose.js';
+import { grouped, inUnit, level, percent } from '../units/format.js';
+import { figureUnits, type FigureUnits } from '../units/systems.js';
+import { el, replaceChildren } from './dom.js';
+
+/**
+ * The "Findings" tab: what the last run found, in the chosen units. Every figure comes from the
+ * run summary the command line writes (summary.json), so the two always agree.
+ */
+export function findingsPanel(store: Store): HTMLElement {
+  const body = el('div', { class: 'findings', data: { test: 'findings' } });
+  const render = (state: AppState) => {
+    if (state.study === null) {
+      replaceChildren(body, el('p', { class: 'muted', text: 'No results yet. Press Run to fly the samples.' }));
+      return;
+    }
+    replaceChildren(body, ...findings(state.study, figureUnits(state.units), studyIsCurrent(state)));
+  };
+  store.subscribe((state, previous) => {
+    if (state.study !== previous.study || state.units !== previous.units || state.accepted !== previous.accepted) render(state);
+  });
+  render(store.get());
+  return el('section', { class: 'panel-section', attrs: { 'aria-label': 'Findings' } }, body);
+}
+
+function figure(name: string, label: string, value: string, detail?: string): HTMLElement {
+  return el('div', { class: 'figure', data: { finding: name } }, el('dt', { text: label }), el('dd', {}, el('span', { class: 'figure-value', text: value }), detail ? el('span', { class: 'figure-detail', text: ` ${detail}` }) : null));
+}
+
+function table(caption: string, name: string, head: string[], rows: (string | Node)[][]): HTMLElement {
+  return el(
+    'table',
+    { data: { finding: name } },
+    el('caption', { text: caption }),
+    el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { text: h, attrs: { scope: 'col' } })))),
+    el('tbody', {}, ...rows.map((r) => el('tr', {}, ...r.map((c, i) => (i === 0 ? el('th', { attrs: { scope: 'row' } }, c) : el('td', {}, c)))))),
+  );
+}
+
+function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[] {
+  const s = study.summary;
+  const out: HTMLElement[] = [];
+  if (!current) out.push(el('p', { class: 'stale', attrs: { role: 'status' }, data: { test: 'stale' }, text: 'These results are from the scenario as it was before your last change. Run again to update them.' }));
+
+  const rate = s.samples / Math.max(1e-3, study.flightTime_ms / 1000);
+  out.push(
+    el('p', { class: 'findings-head' }, el('strong', { text: s.name })),
+    el('p', { class: 'muted', text: `${grouped(s.samples)} samples (seed ${s.seed}) in ${(study.flightTime_ms / 1000).toFixed(1)} s, ${grouped(rate)} flights/s · scenario ${s.scenarioHash.slice(0, 12)}` }),
+  );
+
+  const figures = el('dl', { class: 'figures' });
+  const f = s.farthestLanding;
+  figures.appendChild(figure('farthest', 'Farthest landing', f ? inUnit(f.distance_m, u.length) : 'none landed', f ? `bearing ${f.bearing_deg.toFixed(0)}°, sample ${f.sample} (${f.mode})` : undefined));
+  if (Number.isFinite(s.keepOut.area_m2)) {
+    const k = s.keepOut;
+    figures.appendChild(figure('keepout-reach', 'Keep-out zone reaches', inUnit(k.maxDistance_m, u.length), `from the pad (${level(k.level)} region + ${inUnit(k.margin_m, u.length)} margin)`));
+    figures.appendChild(figure('keepout-area', 'Keep-out zone area', inUnit(k.area_m2, u.area, 2)));
+    figures.appendChild(figure('keepout-outside', 'Landings outside the zone', percent(k.outsideShare), `(95 % upper bound ${percent(k.outsideUpper95)})`));
+  }
+  figures.appendChild(figure('apogee', 'Apogee (median)', inUnit(s.apogee_m.p50, u.length), `5–95 %: ${inUnit(s.apogee_m.p05, u.length)} – ${inUnit(s.apogee_m.p95, u.length)}; highest ${inUnit(s.apogee_m.max, u.length)}`));
+  figures.appendChild(figure('flight-time', 'Flight time (median)', `${s.flightTime_s.p50.toFixed(1)} s`, `5–95 %: ${s.flightTime_s.p05.toFixed(1)} – ${s.flightTime_s.p95.toFixed(1)} s`));
+  figures.appendChild(figure('failed', 'Failed flights', grouped(s.failedSamples), s.failures.map((x) => `${grouped(x.samples)} ${x.reason}`).join('; ') || undefined));
+  out.push(figures);
+
+  if (study.analysis) {
+    const octants = study.analysis.keepOut.properties.octants_m;
+    const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
+    const reach = table('Keep-out zone: farthest point by direction from the pad', 'octants', ['', ...names], [['reach', ...names.map((n) => (octants[n] === null ? '–' : inUnit(octants[n]!, u.length)))]]);
+    reach.classList.add('octants');
+    out.push(reach);
+  }
+  if (s.contours.length > 0) {
+    out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'Samples in band'], s.contours.map((c) => [level(c.level), inUnit(c.area_m2, u.area, 2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
+  }
+  if (s.modes.length > 1) {
+    out.push(table('Modes', 'modes', ['Mode', 'Probability', 'Samples', 'Landed'], s.modes.map((m) => [m.name, percent(m.probability), grouped(m.samples), grouped(m.landed)])));
+  }
+  if (s.areas.length > 0) {
+    const overlaps = new Map((study.analysis?.areas ?? []).map((a) => [a.name, a.intersectsKeepOut]));
+    out.push(
+      table(
+        'Marked areas: chance per flight of a landing inside',
+        'areas',
+        ['Area', 'Hits', 'Probability', '95 % upper bound', 'Keep-out zone'],
+        s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'overlaps' : '–']),
+      ),
+    );
+  }
+  if (s.sensitivity && s.sensitivity.inputs.length > 0) {
+    out.push(
+      table(
+        'What drives the spread: share each input explains alone',
+        'sensitivity',
+        ['Input', 'Landing scatter', 'Distance from pad'],
+        s.sensitivity.inputs.map((x) => [x.input, percent(Math.max(0, x.scatter)), percent(Math.max(0, x.distance))]),
+      ),
+    );
+  }
+  const warnings = [...s.warnings, ...s.scenarioWarnings];
+  if (warnings.length > 0) {
+    out.push(el('div', { class: 'warnings', data: { finding: 'warnings' } }, el('p', { class: 'warnings-title', text: 'Warnings' }), el('ul', {}, ...warnings.map((w) => el('li', { text: w })))));
+  }
+  return out;
+}
+

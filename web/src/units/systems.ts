@@ -1,0 +1,66 @@
+import { convertQuantity, type Dimension } from '../../../src/scenario/units.js';
+
+/**
+ * Metric or imperial display. Conversion factors come from the scenario parser's own unit table
+ * (src/scenario/units.ts), so a value typed in the page and the same value in a file agree to the
+ * last bit.
+ */
+export type UnitSystem = 'metric' | 'imperial';
+
+export const UNIT_SYSTEMS: readonly UnitSystem[] = ['metric', 'imperial'];
+
+/** A unit the page shows and writes back into the scenario file. */
+export interface Unit {
+  /** As the scenario format spells it ("mph", "deg", "%"); '' for plain numbers. */
+  text: string;
+  /** As shown next to numbers ("mph", "°", "%"). */
+  label: string;
+  /** SI value of one of this unit (fractions: 0.01 for %). */
+  si: number;
+}
+
+/** Dimensions the page shows, each with its metric and imperial unit (scenario-format spelling). */
+const UNIT_TEXT: Partial<Record<Dimension, Record<UnitSystem, string>>> = {
+  length: { metric: 'm', imperial: 'ft' },
+  speed: { metric: 'm/s', imperial: 'mph' },
+  mass: { metric: 'kg', imperial: 'lb' },
+  impulse: { metric: 'N s', imperial: 'lbf s' },
+  angle: { metric: 'deg', imperial: 'deg' },
+  time: { metric: 's', imperial: 's' },
+  fraction: { metric: '%', imperial: '%' },
+  number: { metric: '', imperial: '' },
+};
+
+const LABELS: Record<string, string> = { deg: '°' };
+
+function unitOf(text: string, dimension: Dimension): Unit {
+  if (text === '') return { text, label: '', si: 1 };
+  const one = convertQuantity(`1 ${text}`, dimension);
+  if (!one.ok) throw new Error(`unit table: '${text}' is not ${dimension}: ${one.message}`);
+  return { text, label: LABELS[text] ?? text, si: one.value };
+}
+
+/** The unit a field of this dimension is shown and typed in. */
+export function fieldUnit(dimension: Dimension, system: UnitSystem): Unit {
+  const text = UNIT_TEXT[dimension]?.[system];
+  if (text === undefined) throw new Error(`no display unit for ${dimension}`);
+  return unitOf(text, dimension);
+}
+
+/** Units for figures in the findings: distances and heights, areas, speeds. */
+export interface FigureUnits {
+  length: Unit;
+  area: Unit;
+  speed: Unit;
+}
+
+export function figureUnits(system: UnitSystem): FigureUnits {
+  const squareFoot = unitOf('ft2', 'area').si;
+  const squareMetre = unitOf('m2', 'area').si;
+  return {
+    length: fieldUnit('length', system),
+    // Hectares and acres are what land is measured in: 10,000 m², and 43,560 ft² by definition.
+    area: system === 'metric' ? { text: 'ha', label: 'ha', si: 10_000 * squareMetre } : { text: 'acre', label: 'acres', si: 43_560 * squareFoot },
+    speed: fieldUnit('speed', system),
+  };
+}
