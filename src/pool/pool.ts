@@ -100,7 +100,13 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
       halt(error);
       throw error;
     } finally {
-      if (worker) retire(worker);
+      // TypeScript cannot see the assignments made inside `fly`, hence the explicit type.
+      const last = worker as PoolWorker | null;
+      if (last) {
+        // A worker that finished its share cleanly may serve the next run; any other is stopped.
+        if (!halted && last.release && live.delete(last)) last.release();
+        else retire(last);
+      }
     }
   };
 

@@ -44,6 +44,11 @@ export interface PoolWorker {
   readonly stopped: Promise<never>;
   /** Stops the worker at once, even in the middle of a chunk. */
   terminate(): void;
+  /**
+   * Hands a healthy worker back after a run that ended well, for the next run to reuse (see
+   * reuse.ts); workers without it are terminated instead.
+   */
+  release?(): void;
 }
 
 export type PoolWorkerFactory = () => PoolWorker;
