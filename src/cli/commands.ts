@@ -1,5 +1,6 @@
 import { runCommand, RUN_HELP } from './run.js';
 import { checkCommand, CHECK_HELP } from './check.js';
+import { analyzeCommand, ANALYZE_HELP } from './analyze.js';
 import { sheetCommand, SHEET_HELP } from './sheet.js';
 import { envelopeCommand, ENVELOPE_HELP } from './envelope.js';
 
@@ -11,6 +12,7 @@ export interface Command {
 
 export const COMMANDS: Record<string, Command> = {
   run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', help: RUN_HELP, run: runCommand },
+  analyze: { summary: 'draw contours, the keep-out zone and area figures from landing points recorded elsewhere', help: ANALYZE_HELP, run: analyzeCommand },
   check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', help: CHECK_HELP, run: checkCommand },
   sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', help: SHEET_HELP, run: sheetCommand },
   envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', help: ENVELOPE_HELP, run: envelopeCommand },

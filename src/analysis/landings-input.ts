@@ -1,0 +1,112 @@
+import { csvParseRows } from 'd3-dsv';
+import type { LandingSet } from './types.js';
+import type { LocalFrame } from './geodesy.js';
+
+/** A problem in a landings file, with the line it is on (1-based; 0 for the file as a whole). */
+export class LandingsInputError extends Error {
+  constructor(
+    readonly line: number,
+    message: string,
+  ) {
+    super(line > 0 ? `line ${line}: ${message}` : message);
+    this.name = 'LandingsInputError';
+  }
+}
+
+/** Fewest landings that make a density estimate worth drawing. */
+export const MIN_LANDINGS = 10;
+
+/**
+ * Reads landing points recorded elsewhere (trackers, recovered positions, another run): a CSV with
+ * a header and either `east_m,north_m` (metres from the pad) or `lat,lon` (WGS 84 degrees), and
+ * optionally `mode` (a name) and `weight` (a positive number; default 1). Columns may come in any
+ * order; other columns are ignored, so a `landings.csv` written by `strewn run` reads back as is.
+ *
+ * Each mode's probability is its share of the total weight.
+ *
+ * @example
+ * readLandingsCsv('east_m,north_m\n12.5,-40\n…', frame)
+ */
+export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
+  const rows = csvParseRows(text.replace(/^\uFEFF/, ''));
+  // Line numbers count every line of the file, blank ones included.
+  const lines: number[] = [];
+  {
+    let line = 1;
+    const physical = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+    for (const l of physical) {
+      if (l.trim() !== '') lines.push(line);
+      line++;
+    }
+  }
+  // Blank lines are skipped (a line of empty cells is a row, and fails as one).
+  const nonEmpty = rows.filter((r) => !(r.length === 1 && r[0].trim() === ''));
+  if (nonEmpty.length === 0) throw new LandingsInputError(0, 'the file is empty; expected a header line and at least 10 landing rows');
+  const header = nonEmpty[0].map((h) => h.trim().toLowerCase());
+  const col = (name: string) => header.indexOf(name);
+  const east = col('east_m');
+  const north = col('north_m');
+  const lat = col('lat');
+  const lon = col('lon');
+  const local = east >= 0 && north >= 0;
+  if (!local && !(lat >= 0 && lon >= 0)) {
+    throw new LandingsInputError(lines[0], `the header '${nonEmpty[0].join(',')}' has neither east_m and north_m nor lat and lon columns`);
+  }
+  const modeCol = col('mode');
+  const weightCol = col('weight');
+  const sampleCol = col('sample');
+  const body = nonEmpty.slice(1);
+  if (body.length < MIN_LANDINGS) {
+    throw new LandingsInputError(0, `the file has ${body.length} landing row${body.length === 1 ? '' : 's'}; expected at least ${MIN_LANDINGS}`);
+  }
+  const n = body.length;
+  const set = {
+    east: new Float64Array(n),
+    north: new Float64Array(n),
+    weight: new Float64Array(n),
+    mode: new Uint8Array(n),
+    sample: new Uint32Array(n),
+  };
+  const modeNames: string[] = [];
+  const number = (row: string[], c: number, what: string, line: number): number => {
+    const cell = (row[c] ?? '').trim();
+    const v = cell === '' ? NaN : Number(cell);
+    if (!Number.isFinite(v)) throw new LandingsInputError(line, `${what} is '${cell}'; expected a number`);
+    return v;
+  };
+  body.forEach((row, i) => {
+    const line = lines[i + 1] ?? i + 2;
+    if (local) {
+      set.east[i] = number(row, east, 'east_m', line);
+      set.north[i] = number(row, north, 'north_m', line);
+    } else {
+      const la = number(row, lat, 'lat', line);
+      const lo = number(row, lon, 'lon', line);
+      if (Math.abs(la) > 90) throw new LandingsInputError(line, `lat is ${la}; expected −90 to 90 degrees`);
+      if (Math.abs(lo) > 180) throw new LandingsInputError(line, `lon is ${lo}; expected −180 to 180 degrees`);
+      const [e, nn] = frame.toEastNorth(lo, la);
+      set.east[i] = e;
+      set.north[i] = nn;
+    }
+    const w = weightCol >= 0 ? number(row, weightCol, 'weight', line) : 1;
+    if (!(w > 0)) throw new LandingsInputError(line, `weight is ${w}; expected a positive number`);
+    set.weight[i] = w;
+    const name = modeCol >= 0 ? (row[modeCol] ?? '').trim() || 'nominal' : 'nominal';
+    let m = modeNames.indexOf(name);
+    if (m < 0) {
+      if (modeNames.length === 255) throw new LandingsInputError(line, 'more than 255 different modes');
+      m = modeNames.push(name) - 1;
+    }
+    set.mode[i] = m;
+    set.sample[i] = sampleCol >= 0 && /^\d+$/.test((row[sampleCol] ?? '').trim()) ? Number(row[sampleCol]) : i;
+  });
+  const total = set.weight.reduce((a, b) => a + b, 0);
+  const modeProbability = modeNames.map((_, m) => {
+    let s = 0;
+    for (let i = 0; i < n; i++) if (set.mode[i] === m) s += set.weight[i];
+    return s / total;
+  });
+  // Weights as probabilities, so every figure reads as a share of flights.
+  for (let i = 0; i < n; i++) set.weight[i] /= total;
+  return { ...set, modeNames, modeProbability };
+}
