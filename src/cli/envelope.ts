@@ -1,12 +1,15 @@
 import { basename, extname, join } from 'node:path';
 import { runInPool } from '../pool/pool.js';
 import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
+import { reusableWorkers } from '../pool/reuse.js';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { rangeValues } from '../envelope/grid.js';
 import { windEnvelope } from '../envelope/envelope.js';
 import { writeEnvelopeCsv, writeEnvelopeJson } from '../envelope/writers.js';
 import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
+import { envelopePdf } from '../envelope/envelope-pdf.js';
 import { CAUTION } from '../report/caution.js';
+import { isoSeconds, runDate } from '../report/sheet/review-facts.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
@@ -20,7 +23,9 @@ For every wind direction (from) and mean wind speed on a grid, flies the scenari
 (its spreads and failure modes, the same random numbers at every point), builds the keep-out zone
 and tests it: inside site.boundary, and clear of every area of kind spectators, parking, road or
 building. Reports, per direction, the highest speed at which every test holds and the test that
-fails first above it. Writes envelope.json, envelope.csv and envelope.svg.
+fails first above it. Writes envelope.json, envelope.csv, envelope.svg (the polar chart) and
+envelope.pdf (a page in the review sheet's style; \`strewn sheet <results> --envelope <this folder>\`
+adds the same page to a run's review sheet).
 
 Options:
   --directions A:B:S  wind directions in degrees, start:stop:step (default 0:330:30)
@@ -29,7 +34,8 @@ Options:
   --seed S            random seed (default: the scenario's run.seed)
   --workers W         worker threads (default: the number of CPU cores)
   --exhaustive        fly every grid point instead of bisecting each direction's speeds
-  --units U           metric or imperial, for the chart (default metric)
+  --units U           metric or imperial, for the chart and the page (default metric)
+  --paper P           a4 or letter, for envelope.pdf (default a4)
   --out DIR           results folder (default: results/<scenario file name>-envelope)
   --force             replace DIR if it is not empty
   --quiet             print nothing but errors
@@ -52,6 +58,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     workers: { type: 'string' },
     exhaustive: { type: 'boolean' },
     units: { type: 'string' },
+    paper: { type: 'string' },
     out: { type: 'string' },
     force: { type: 'boolean' },
     quiet: { type: 'boolean' },
@@ -70,6 +77,8 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
   const units = (values.units as string | undefined) ?? 'metric';
   if (units !== 'metric' && units !== 'imperial') throw new UsageError(`--units: '${units}'; expected metric or imperial`);
+  const paper = (values.paper as string | undefined) ?? 'a4';
+  if (paper !== 'a4' && paper !== 'letter') throw new UsageError(`--paper: '${paper}'; expected a4 or letter`);
   const quiet = values.quiet === true;
   const json = values.json === true;
 
@@ -85,7 +94,9 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   process.once('SIGINT', onSignal);
   process.once('SIGTERM', onSignal);
   const bar = progressBar(process.stderr, !quiet);
-  const createWorker = nodeWorkerFactory();
+  // One set of threads for the whole grid: starting them per grid point would cost more than flying.
+  const keeper = reusableWorkers(nodeWorkerFactory());
+  const createWorker = keeper.createWorker;
   const started = Date.now();
   try {
     const result = await windEnvelope(scenario, {
@@ -99,15 +110,18 @@ export async function envelopeCommand(args: string[]): Promise<number> {
       onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
     });
     bar.end();
-    const extra = { version: VERSION, scenarioHash: loaded.hash, caution: CAUTION };
+    const computedAt = isoSeconds(runDate());
+    const extra = { version: VERSION, scenarioHash: loaded.hash, computedAt, caution: CAUTION };
     out.write('envelope.json', writeEnvelopeJson(result, extra));
     out.write('envelope.csv', writeEnvelopeCsv(result));
-    out.write('envelope.svg', envelopeChart(result, { units, caution: CAUTION }));
+    out.write('envelope.svg', envelopeChart(result, { units }));
+    out.write('envelope.pdf', envelopePdf({ envelope: result, scenarioHash: loaded.hash, version: VERSION, computedAt }, { paper, units }));
     out.commit();
     if (json) process.stdout.write(JSON.stringify({ ...extra, limits: result.limits.map(({ cases: _c, ...d }) => d) }, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatEnvelope(result, out.destination));
     return 0;
   } finally {
+    keeper.close();
     bar.end();
     out.discard();
     process.off('SIGINT', onSignal);

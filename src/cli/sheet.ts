@@ -2,6 +2,7 @@ import { renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { buildSheet, type Paper, type UnitSystem } from '../report/sheet/index.js';
 import { readResultsFolder, ResultsFolderError } from '../report/sheet/read-results.js';
+import { ENVELOPE_FILE, readEnvelopeFolder } from '../envelope/read-envelope.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { UsageError } from './errors.js';
 
@@ -15,6 +16,8 @@ are replaced only when both are ready.
 Options:
   --paper a4|letter          paper size (default a4)
   --units metric|imperial    m, m², m/s or ft/mi, acres/ft², mph (default metric)
+  --envelope DIR             add the wind-limits page from DIR/envelope.json (written by strewn
+                             envelope for the same scenario: its scenarioHash must match)
   -h, --help                 this help
 
 Exit status: 0 done, 2 bad input (folder, files or options), 1 anything else.
@@ -30,6 +33,7 @@ export async function sheetCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseCommandArgs('sheet', args, {
     paper: { type: 'string' },
     units: { type: 'string' },
+    envelope: { type: 'string' },
   });
   if (values.help) {
     process.stdout.write(SHEET_HELP);
@@ -38,14 +42,27 @@ export async function sheetCommand(args: string[]): Promise<number> {
   const folder = onePositional('sheet', positionals, 'results folder');
   const paper = choice<Paper>('paper', values.paper as string | undefined, ['a4', 'letter'], 'a4');
   const units = choice<UnitSystem>('units', values.units as string | undefined, ['metric', 'imperial'], 'metric');
+  const envelopeFolder = values.envelope as string | undefined;
   let input;
+  let envelope;
   try {
     input = readResultsFolder(folder);
   } catch (error) {
     if (error instanceof ResultsFolderError) throw new UsageError(error.message);
     throw error;
   }
-  const sheet = buildSheet(input, { paper, units });
+  try {
+    envelope = envelopeFolder === undefined ? undefined : readEnvelopeFolder(envelopeFolder);
+  } catch (error) {
+    if (error instanceof ResultsFolderError) throw new UsageError(`--envelope: ${error.message}`);
+    throw error;
+  }
+  if (envelope && envelope.scenarioHash !== input.summary.scenarioHash) {
+    throw new UsageError(
+      `--envelope: ${join(envelopeFolder!, ENVELOPE_FILE)} has scenarioHash ${envelope.scenarioHash.slice(0, 12)}… but ${join(folder, 'summary.json')} has ${input.summary.scenarioHash.slice(0, 12)}…; the wind limits were computed for another scenario (or another version of it)`,
+    );
+  }
+  const sheet = buildSheet(input, { paper, units, envelope });
   // Written beside the targets under temporary names, then renamed: a failure leaves the old
   // files (or none) rather than half-written ones.
   const files: [string, string | Uint8Array][] = [['sheet.pdf', sheet.pdf], ['map.svg', sheet.svg]];

@@ -1,88 +1,122 @@
+/**
+ * envelope.svg: the polar chart of the wind limits on a page of its own, with its title, the
+ * forecast verdict, a legend, how it was computed and the caution. Built as a display list and
+ * drawn by the review sheet's SVG renderer, like every other drawing of the project.
+ *
+ * @example
+ *   writeFileSync('envelope.svg', envelopeChart(result, { units: 'metric' }));
+ */
+import type { Page, Shape } from '../report/sheet/display-list.js';
+import { CAP_HEIGHT, defaultMeasure, wrapText, type TextMeasure } from '../report/sheet/fonts.js';
+import { layoutLegend } from '../report/sheet/legend.js';
+import { cautionBox } from '../report/sheet/page-parts.js';
+import { INK_SOFT } from '../report/sheet/palette.js';
+import { renderSvg } from '../report/sheet/render-svg.js';
+import type { UnitSystem } from '../report/sheet/units.js';
+import { toWinAnsi } from '../report/sheet/winansi.js';
 import type { EnvelopeResult } from './envelope.js';
-import { escapeXml } from '../analysis/kml.js';
+import { polarChart, polarChartLegend, verdictColor } from './polar-chart.js';
+import type { PolarFrame } from './polar-frame.js';
+import { envelopeSubtitle, envelopeTitle, forecastWords, samplesWords, speedWords } from './wording.js';
 
 export interface ChartOptions {
-  units: 'metric' | 'imperial';
-  caution: string;
+  units: UnitSystem;
+  /** Text widths; made on first use when not given. */
+  measure?: TextMeasure;
 }
 
-const MPH = 0.44704;
+const WIDTH = 480;
+const MARGIN = 24;
+
+/** Lines of text from `y` down (y is the top of the first line); returns the shapes and the y below. */
+export function textLines(
+  text: string,
+  x: number,
+  y: number,
+  width: number,
+  style: { size: number; font: 'regular' | 'bold' | 'italic'; color: string; anchor?: 'start' | 'middle' },
+  measure: TextMeasure,
+): { shapes: Shape[]; bottom: number } {
+  const lines = wrapText(measure, toWinAnsi(text), style.size, style.font, width);
+  const step = style.size * 1.25;
+  const anchor = style.anchor ?? 'start';
+  const shapes: Shape[] = lines.map((line, i) => ({
+    kind: 'text',
+    x: anchor === 'middle' ? x + width / 2 : x,
+    y: y + style.size * CAP_HEIGHT + i * step,
+    text: line,
+    size: style.size,
+    font: style.font,
+    anchor,
+    color: style.color,
+  }));
+  return { shapes, bottom: y + lines.length * step };
+}
+
+/** The verdict on the forecast as a named group (id "verdict"), wrapped to `width`. */
+export function verdictShapes(e: EnvelopeResult, units: UnitSystem, x: number, y: number, width: number, size: number, measure: TextMeasure, anchor: 'start' | 'middle' = 'start'): { shapes: Shape[]; bottom: number } {
+  const verdict = forecastVerdict(e, speedWords(units));
+  const lines = textLines(verdict.text, x, y, width, { size, font: 'bold', color: verdictColor(verdict.inside), anchor }, measure);
+  return { shapes: [{ kind: 'group', id: 'verdict', className: verdict.inside ? 'verdict inside' : 'verdict outside', shapes: lines.shapes }], bottom: lines.bottom };
+}
+
+/** envelope.svg's page: title, what it shows, the verdict, the chart, its legend, the method, the caution. */
+export function envelopeChartPage(e: EnvelopeResult, options: ChartOptions): Page {
+  const measure = options.measure ?? defaultMeasure();
+  const { units } = options;
+  const width = WIDTH - 2 * MARGIN;
+  const shapes: Shape[] = [];
+  let y = MARGIN;
+  const title = textLines(envelopeTitle(e), MARGIN, y, width, { size: 14, font: 'bold', color: '#141414', anchor: 'middle' }, measure);
+  shapes.push({ kind: 'group', className: 'title', shapes: title.shapes });
+  y = title.bottom + 2;
+  const subtitle = textLines(envelopeSubtitle(units), MARGIN, y, width, { size: 8.5, font: 'regular', color: INK_SOFT, anchor: 'middle' }, measure);
+  shapes.push(...subtitle.shapes);
+  y = subtitle.bottom + 6;
+  const verdict = verdictShapes(e, units, MARGIN, y, width, 10, measure, 'middle');
+  shapes.push(...verdict.shapes);
+  y = verdict.bottom + 4;
+  const chart = polarChart(e, { units, measure, x: MARGIN, y, size: width });
+  shapes.push(...chart.shapes);
+  y += chart.height + 4;
+  const legend = layoutLegend(polarChartLegend(e, forecastWords(e, units)), MARGIN, y, width, 2, measure);
+  shapes.push({ kind: 'group', id: 'envelope-legend', shapes: legend.shapes });
+  y += legend.height + 4;
+  const method = textLines(samplesWords(e), MARGIN, y, width, { size: 8.5, font: 'regular', color: INK_SOFT }, measure);
+  shapes.push({ kind: 'group', className: 'method', shapes: method.shapes });
+  y = method.bottom + 6;
+  const caution = cautionBox(MARGIN, y, width, measure);
+  shapes.push(...caution.shapes);
+  return { width: WIDTH, height: y + caution.height + MARGIN, shapes };
+}
 
 /**
- * envelope.svg: a polar chart of the wind limits. Direction is where the wind blows from, north
- * up and clockwise as on a compass; the distance from the centre is the mean wind speed. The shaded
- * shape holds the winds this vehicle can fly in on this field; the forecast wind is the marked dot.
- * Shapes differ by outline and fill pattern as well as by colour, so the chart reads in greyscale.
+ * The chart for a narrow panel (the web page): the verdict, the chart and its legend, without the
+ * title and caution the page around it already shows. `frame` reads clicks back into grid points.
  */
+export function envelopeFigure(e: EnvelopeResult, options: ChartOptions & { width?: number }): { page: Page; frame: PolarFrame } {
+  const measure = options.measure ?? defaultMeasure();
+  const { units } = options;
+  const pageWidth = options.width ?? 300;
+  const margin = 4;
+  const width = pageWidth - 2 * margin;
+  const shapes: Shape[] = [];
+  const verdict = verdictShapes(e, units, margin, margin, width, 9, measure);
+  shapes.push(...verdict.shapes);
+  const chart = polarChart(e, { units, measure, x: margin, y: verdict.bottom + 2, size: width });
+  shapes.push(...chart.shapes);
+  let y = verdict.bottom + 2 + chart.height + 4;
+  const legend = layoutLegend(polarChartLegend(e, forecastWords(e, units)), margin, y, width, 1, measure);
+  shapes.push({ kind: 'group', id: 'envelope-legend', shapes: legend.shapes });
+  y += legend.height + 2;
+  const method = textLines(samplesWords(e), margin, y, width, { size: 8, font: 'regular', color: INK_SOFT }, measure);
+  shapes.push({ kind: 'group', className: 'method', shapes: method.shapes });
+  return { page: { width: pageWidth, height: method.bottom + margin, shapes }, frame: chart.frame };
+}
+
+/** envelope.svg as text. */
 export function envelopeChart(e: EnvelopeResult, options: ChartOptions): string {
-  const imperial = options.units === 'imperial';
-  const unit = imperial ? 'mph' : 'm/s';
-  const toUnit = (v: number) => (imperial ? v / MPH : v);
-  const W = 640;
-  const H = 800;
-  const cx = W / 2;
-  const cy = 392;
-  const R = 250;
-  const top = Math.max(toUnit(e.speeds[e.speeds.length - 1]), toUnit(e.forecast.speed), 1);
-  const ringStep = niceStep(top / 5);
-  const rMax = Math.ceil(top / ringStep) * ringStep;
-  const radius = (v: number) => (toUnit(v) / rMax) * R;
-  const point = (from: number, v: number): [number, number] => {
-    const a = (from * Math.PI) / 180;
-    const r = radius(v);
-    return [cx + r * Math.sin(a), cy - r * Math.cos(a)];
-  };
-  const f = (x: number) => x.toFixed(1);
-  const out: string[] = [];
-  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="Helvetica, Arial, sans-serif">`);
-  out.push(`<defs><pattern id="hatch" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><rect width="8" height="8" fill="#dce9f2"/><line x1="0" y1="0" x2="0" y2="8" stroke="#7ea6c4" stroke-width="2"/></pattern></defs>`);
-  out.push(`<rect width="${W}" height="${H}" fill="#ffffff"/>`);
-  out.push(`<text x="${cx}" y="34" text-anchor="middle" font-size="18" font-weight="bold">${escapeXml('Wind limits: ' + e.name)}</text>`);
-  wrap(`Highest mean wind (${unit}, at the reference height) at which the keep-out zone stays inside the site and clear of protected areas`, 90).forEach((line, i) =>
-    out.push(`<text x="${cx}" y="${56 + i * 15}" text-anchor="middle" font-size="12" fill="#333">${escapeXml(line)}</text>`),
-  );
-  // Speed rings and their labels.
-  for (let v = ringStep; v <= rMax + 1e-9; v += ringStep) {
-    const r = (v / rMax) * R;
-    out.push(`<circle class="ring" cx="${cx}" cy="${cy}" r="${f(r)}" fill="none" stroke="#9a9a9a" stroke-width="0.8" stroke-dasharray="2 3"/>`);
-  }
-  // Spokes at the grid directions, compass labels outside.
-  for (const d of e.directions) {
-    const [x, y] = pointAt(cx, cy, d, R);
-    out.push(`<line x1="${cx}" y1="${cy}" x2="${f(x)}" y2="${f(y)}" stroke="#c8c8c8" stroke-width="0.6"/>`);
-    const [lx, ly] = pointAt(cx, cy, d, R + 22);
-    out.push(`<text x="${f(lx)}" y="${f(ly + 4)}" text-anchor="middle" font-size="11" fill="#222">${compass(d)}</text>`);
-  }
-  // The envelope: limit speed by direction.
-  const pts = e.limits.map((d) => point(d.from, d.limit ?? 0));
-  out.push(`<polygon id="envelope" points="${pts.map(([x, y]) => `${f(x)},${f(y)}`).join(' ')}" fill="url(#hatch)" fill-opacity="0.85" stroke="#1f4e79" stroke-width="2.5" stroke-linejoin="round"/>`);
-  for (const d of e.limits) {
-    const [x, y] = point(d.from, d.limit ?? 0);
-    if (d.aboveGrid) out.push(`<path class="above-grid" d="M${f(x - 5)},${f(y)} L${f(x)},${f(y - 6)} L${f(x + 5)},${f(y)} Z" fill="#1f4e79"/>`);
-    else out.push(`<circle class="limit" cx="${f(x)}" cy="${f(y)}" r="3" fill="#1f4e79"/>`);
-  }
-  // Ring labels above the envelope, with a white halo so they read on the hatching.
-  for (let v = ringStep; v <= rMax + 1e-9; v += ringStep) {
-    const r = (v / rMax) * R;
-    out.push(`<text x="${f(cx + 4)}" y="${f(cy - r - 3)}" font-size="10" fill="#333" stroke="#ffffff" stroke-width="3" paint-order="stroke">${formatNumber(v)} ${unit}</text>`);
-  }
-  // Forecast wind.
-  const [fx, fy] = point(e.forecast.from, e.forecast.speed);
-  out.push(`<g id="forecast"><circle cx="${f(fx)}" cy="${f(fy)}" r="7" fill="#ffffff" stroke="#b3541e" stroke-width="3"/><circle cx="${f(fx)}" cy="${f(fy)}" r="2.5" fill="#b3541e"/></g>`);
-  // Legend.
-  const ly = 700;
-  out.push(`<rect x="40" y="${ly - 12}" width="22" height="14" fill="url(#hatch)" stroke="#1f4e79" stroke-width="2"/>`);
-  out.push(`<text x="70" y="${ly}" font-size="12">winds that pass every test</text>`);
-  out.push(`<circle cx="51" cy="${ly + 17}" r="6" fill="#ffffff" stroke="#b3541e" stroke-width="3"/>`);
-  const verdict = forecastVerdict(e, (v) => `${toUnit(v).toFixed(1)} ${unit}`);
-  out.push(`<text x="70" y="${ly + 21}" font-size="12">${escapeXml(`forecast: ${formatNumber(toUnit(e.forecast.speed))} ${unit} from ${Math.round(e.forecast.from)}°`)}</text>`);
-  out.push(`<text id="verdict" x="${cx}" y="100" text-anchor="middle" font-size="13" font-weight="bold" fill="${verdict.inside ? '#1f4e79' : '#8a2f0a'}">${escapeXml(verdict.text)}</text>`);
-  out.push(`<path d="M330,${ly} L335,${ly - 6} L340,${ly} Z" fill="#1f4e79"/><text x="348" y="${ly}" font-size="12">passes up to the top of the grid</text>`);
-  out.push(`<text x="330" y="${ly + 21}" font-size="12">${escapeXml(`${e.samples.toLocaleString('en')} samples per point, seed ${e.seed}, ${e.method}`)}</text>`);
-  // Caution, wrapped.
-  wrap(options.caution, 100).forEach((line, i) => out.push(`<text x="${cx}" y="${752 + i * 13}" text-anchor="middle" font-size="10" fill="#333">${escapeXml(line)}</text>`));
-  out.push('</svg>');
-  return out.join('\n') + '\n';
+  return renderSvg(envelopeChartPage(e, options), envelopeTitle(e));
 }
 
 /**
@@ -118,41 +152,4 @@ export function limitAt(e: EnvelopeResult, from: number): number | null {
     if (t <= span + 1e-9) return a.limit + (t / span) * (b.limit - a.limit);
   }
   return null;
-}
-
-function pointAt(cx: number, cy: number, from: number, r: number): [number, number] {
-  const a = (from * Math.PI) / 180;
-  return [cx + r * Math.sin(a), cy - r * Math.cos(a)];
-}
-
-const NAMES = ['N', 'NNE', 'NE', 'ENE', 'E', 'ESE', 'SE', 'SSE', 'S', 'SSW', 'SW', 'WSW', 'W', 'WNW', 'NW', 'NNW'];
-
-function compass(deg: number): string {
-  const d = ((deg % 360) + 360) % 360;
-  const k = d / 22.5;
-  return Math.abs(k - Math.round(k)) < 1e-9 ? `${NAMES[Math.round(k) % 16]} ${Math.round(d)}°` : `${Math.round(d)}°`;
-}
-
-function niceStep(x: number): number {
-  const p = 10 ** Math.floor(Math.log10(x));
-  const m = x / p;
-  return (m <= 1 ? 1 : m <= 2 ? 2 : m <= 2.5 ? 2.5 : m <= 5 ? 5 : 10) * p;
-}
-
-function formatNumber(v: number): string {
-  return Math.abs(v - Math.round(v)) < 1e-9 ? String(Math.round(v)) : v.toFixed(1);
-}
-
-function wrap(text: string, width: number): string[] {
-  const words = text.split(/\s+/);
-  const lines: string[] = [];
-  let line = '';
-  for (const w of words) {
-    if ((line + ' ' + w).trim().length > width) {
-      lines.push(line);
-      line = w;
-    } else line = (line + ' ' + w).trim();
-  }
-  if (line) lines.push(line);
-  return lines;
 }

@@ -11,6 +11,8 @@ import { MapView } from './map/view.js';
 import { el } from './panels/dom.js';
 import { exportPanel } from './panels/export-panel.js';
 import { findingsPanel } from './panels/findings-panel.js';
+import { envelopePanel } from './panels/envelope-panel.js';
+import { IDLE_ENVELOPE } from './study/envelope.js';
 import { runPanel } from './panels/run-panel.js';
 import { scenarioPanel } from './panels/scenario-panel.js';
 import { settingsPanel } from './panels/settings-panel.js';
@@ -41,6 +43,7 @@ function boot(): void {
     units: recallUnits(),
     run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
     study: null,
+    envelope: IDLE_ENVELOPE,
   });
   const controller = new Controller(store);
 
@@ -77,6 +80,7 @@ function boot(): void {
     [
       { id: 'setup', title: 'Setup', panel: scenarioPanel(store, controller) },
       { id: 'findings', title: 'Findings', panel: findingsPanel(store) },
+      { id: 'limits', title: 'Wind limits', panel: envelopePanel(store, controller) },
       { id: 'files', title: 'Files', panel: exportPanel(store, controller) },
       { id: 'map', title: 'Map', panel: settingsPanel(controller, mapView !== null, (listener) => mapView && (mapView.onBasemapError = listener)) },
     ],

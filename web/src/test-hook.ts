@@ -19,6 +19,10 @@ export interface StrewnTestHook {
   summary(): RunSummary | null;
   run(): { phase: string; done: number; total: number; rate: number; message: string; flightTime_ms: number | null };
   scenario(): { name: string; pad: { lat: number; lon: number }; hash: string; draftIssues: number };
+  /** The wind-limits computation: its phase and, when done, the limit per direction (m/s). */
+  envelope(): { phase: string; progress: number; limits: { from: number; limit: number | null }[] | null; hash: string | null };
+  /** The mean wind of the accepted scenario (m/s, degrees from). */
+  wind(): { speed: number; from: number; gust: number | null };
   /** Where a place is drawn, in page pixels (null without a map). */
   screenPoint(lon: number, lat: number): { x: number; y: number } | null;
 }
@@ -41,6 +45,14 @@ export function installTestHook(store: Store, mapView: MapView | null): void {
     scenario: () => {
       const s = store.get();
       return { name: s.accepted.scenario.name, pad: { lat: s.accepted.scenario.site.pad.lat, lon: s.accepted.scenario.site.pad.lon }, hash: s.accepted.hash, draftIssues: s.draftIssues.length };
+    },
+    envelope: () => {
+      const e = store.get().envelope;
+      return { phase: e.phase, progress: e.progress, limits: e.outcome?.envelope.limits.map((d) => ({ from: d.from, limit: d.limit })) ?? null, hash: e.outcome?.hash ?? null };
+    },
+    wind: () => {
+      const w = store.get().accepted.scenario.weather.wind;
+      return { speed: w.speed, from: w.from, gust: w.gust ?? null };
     },
     screenPoint: (lon, lat) => {
       if (!mapView) return null;

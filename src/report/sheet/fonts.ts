@@ -48,6 +48,14 @@ export function createTextMeasure(): TextMeasure {
   };
 }
 
+let shared: TextMeasure | null = null;
+
+/** One measure for the whole process (or page): its cache of widths then serves every drawing. */
+export function defaultMeasure(): TextMeasure {
+  shared ??= createTextMeasure();
+  return shared;
+}
+
 /**
  * Splits text into lines no wider than `width` at word boundaries (a word longer than the line is
  * cut, so nothing runs off the page).

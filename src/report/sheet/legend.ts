@@ -13,7 +13,9 @@ export type Swatch =
   | { kind: 'area'; fill?: Fill; stroke?: Stroke }
   | { kind: 'marker'; symbol: MarkerSymbol; color: string; size: number; opacity?: number }
   | { kind: 'pad' }
-  | { kind: 'release' };
+  | { kind: 'release' }
+  /** Anything else: shapes drawn in a swatch `width` wide, centred on the line at `yMid`. */
+  | { kind: 'custom'; draw: (x: number, yMid: number, width: number) => Shape[] };
 
 export interface LegendEntry {
   swatch: Swatch;
@@ -40,6 +42,8 @@ function swatchShapes(s: Swatch, x: number, yMid: number): Shape[] {
       return padSymbol(x + SWATCH_W / 2, yMid);
     case 'release':
       return releaseSymbol(x + SWATCH_W / 2, yMid);
+    case 'custom':
+      return s.draw(x, yMid, SWATCH_W);
   }
 }
 

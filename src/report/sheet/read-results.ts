@@ -28,7 +28,8 @@ export const MAX_LANDINGS_FILE_BYTES = 200 * 1024 * 1024;
 
 type Json = unknown;
 
-function readText(folder: string, name: string): string {
+/** A file of a folder as text; a missing or unreadable file is a ResultsFolderError naming it. */
+export function readText(folder: string, name: string): string {
   const path = join(folder, name);
   try {
     return readFileSync(path, 'utf8');
@@ -39,7 +40,8 @@ function readText(folder: string, name: string): string {
   }
 }
 
-function parse(folder: string, name: string, text: string): Json {
+/** JSON text of a file of a folder; bad JSON is a ResultsFolderError naming the file. */
+export function parse(folder: string, name: string, text: string): Json {
   try {
     return JSON.parse(text);
   } catch (error) {
@@ -49,7 +51,7 @@ function parse(folder: string, name: string, text: string): Json {
 }
 
 /** Field checks that name the file and the field path in their message. */
-class Check {
+export class Check {
   constructor(private readonly file: string) {}
 
   fail(path: string, expected: string, value: unknown): never {

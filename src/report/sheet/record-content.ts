@@ -13,7 +13,10 @@ import type { Scenario, Spread, UncertaintyName } from '../../scenario/types.js'
 import { UNCERTAINTY_NAMES } from '../../scenario/types.js';
 import { MIN_BAND_SAMPLES } from '../../analysis/confidence.js';
 import { bearingText } from './compass.js';
-import type { FontName } from './display-list.js';
+import { SPREAD_WORDS } from './input-names.js';
+import type { FontName, Shape } from './display-list.js';
+import type { TextMeasure } from './fonts.js';
+import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote } from './sensitivity-bars.js';
 import { dateText } from './page-parts.js';
 import type { SheetInput } from './sheet-input.js';
 import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from './units.js';
@@ -26,11 +29,14 @@ export interface Column {
 }
 
 export type Block =
-  | { kind: 'heading'; text: string }
+  /** `aside` draws something small at the right end of the heading's line (a key). */
+  | { kind: 'heading'; text: string; aside?: { width: (size: number, measure: TextMeasure) => number; draw: (x: number, baseline: number, size: number, measure: TextMeasure) => Shape[] } }
   | { kind: 'rows'; rows: { label: string; value: string; font?: FontName }[] }
   | { kind: 'table'; id: string; columns: Column[]; rows: string[][] }
   | { kind: 'text'; text: string; font?: FontName }
   | { kind: 'bullets'; items: string[] }
+  /** A drawing laid at (x, y) across `width` in type of `size`; it reports the height it took. */
+  | { kind: 'figure'; draw: (x: number, y: number, width: number, size: number, measure: TextMeasure) => { shapes: Shape[]; height: number } }
   | { kind: 'signoff' };
 
 export interface RecordLimits {
@@ -38,23 +44,9 @@ export interface RecordLimits {
   noteLines: number;
   /** Most warnings listed (the rest is in summary.json). */
   warnings: number;
+  /** Most inputs drawn in "What drives the landing spread" (the rest is in summary.json). */
+  sensitivityInputs: number;
 }
-
-const SPREAD_WORDS: Record<UncertaintyName, string> = {
-  'wind.speed': 'wind speed',
-  'wind.from': 'wind direction',
-  'wind.gust': 'gust speed',
-  'launch.tilt': 'rail tilt',
-  'launch.azimuth': 'launch direction',
-  'launch.speed': 'launch speed',
-  'launch.elevation': 'launch elevation',
-  'launch.height': 'launch height',
-  'motor.impulse': 'motor impulse',
-  'vehicle.mass': 'vehicle mass',
-  'vehicle.drag': 'drag coefficient',
-  'recovery.delay': 'deployment delay',
-  'recovery.rate': 'descent rate (drag area)',
-};
 
 /** An absolute spread value in the parameter's unit. */
 function spreadValue(name: UncertaintyName, x: number, u: UnitFormatter): string {
@@ -299,6 +291,14 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
         text: `* Indicative only, not a compliance figure: landings of modes without a parachute, people spread evenly over the area, ${u.area(review.lethalArea_m2)} assumed lethal area per impact.`,
       });
     }
+  }
+
+  const sensitivity = s.sensitivity;
+  if (sensitivity && sensitivity.inputs.length > 0) {
+    const shown = Math.min(sensitivity.inputs.length, limits.sensitivityInputs);
+    blocks.push({ kind: 'heading', text: 'What drives the landing spread', aside: { width: (size, measure) => sensitivityKeyWidth(size, measure), draw: (x, baseline, size, measure) => sensitivityKey(x, baseline, size, measure) } });
+    blocks.push({ kind: 'figure', draw: (x, y, width, size, measure) => sensitivityBars(sensitivity.inputs, x, y, width, { columns: 2, size, maxRows: shown }, measure) });
+    blocks.push({ kind: 'text', font: 'italic', text: sensitivityNote(sensitivity.method, sensitivity.inputs.length - shown) });
   }
 
   const warnings = [...s.warnings, ...s.scenarioWarnings];

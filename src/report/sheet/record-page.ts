@@ -12,7 +12,7 @@ import type { FontName, Page, Shape } from './display-list.js';
 import { CAP_HEIGHT, wrapText, type TextMeasure } from './fonts.js';
 import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, type SheetOptions } from './page-parts.js';
 import { INK, INK_SOFT } from './palette.js';
-import { recordBlocks, type Column, type RecordLimits } from './record-content.js';
+import { recordBlocks, type Block, type Column, type RecordLimits } from './record-content.js';
 import type { SheetInput } from './sheet-input.js';
 import { grouped, unitFormatter } from './units.js';
 import { toWinAnsi } from './winansi.js';
@@ -27,12 +27,20 @@ interface Style {
 const STYLES: Style[] = [
   { size: 8.5, leading: 1.24, headingGap: 9, blockGap: 5 },
   { size: 8, leading: 1.18, headingGap: 7, blockGap: 4 },
+  // Still 8 pt type, set closer: lets a full record (sensitivity bars and all) stay on one page of
+  // US Letter, which is 50 pt shorter than A4.
+  { size: 8, leading: 1.12, headingGap: 6, blockGap: 3 },
 ];
 
+// Fewer sensitivity bars go first (summary.json and the web page have them all), the user's own
+// notes and the warnings are shortened only after that.
 const LIMITS: RecordLimits[] = [
-  { noteLines: 6, warnings: 12 },
-  { noteLines: 3, warnings: 6 },
-  { noteLines: 1, warnings: 2 },
+  { noteLines: 6, warnings: 12, sensitivityInputs: 10 },
+  { noteLines: 6, warnings: 12, sensitivityInputs: 6 },
+  { noteLines: 6, warnings: 12, sensitivityInputs: 4 },
+  { noteLines: 3, warnings: 6, sensitivityInputs: 4 },
+  { noteLines: 1, warnings: 2, sensitivityInputs: 4 },
+  { noteLines: 1, warnings: 2, sensitivityInputs: 2 },
 ];
 
 const LABEL_WIDTH = 92;
@@ -82,13 +90,14 @@ class Flow {
     if (this.y > this.top) this.y += height;
   }
 
-  /** A heading, kept with at least two lines of what follows. */
-  heading(text: string): void {
+  /** A heading, kept with at least two lines of what follows; `aside` goes at the line's right end. */
+  heading(text: string, aside?: Extract<Block, { kind: 'heading' }>['aside']): void {
     const size = this.style.size + 2;
     this.fit(this.style.headingGap + size + 4.5 + 3 * this.step);
     this.gap(this.style.headingGap);
     this.y += size * CAP_HEIGHT;
     this.text(text, this.x, 'bold', INK, 'start', size);
+    if (aside) this.shapes.push(...aside.draw(this.x + this.width - aside.width(this.style.size, this.measure), this.y, this.style.size, this.measure));
     this.y += 2.5;
     this.rule(INK, 0.6);
     this.y += 2;
@@ -180,6 +189,16 @@ class Flow {
     }
   }
 
+  /** A drawing that reports its own height, kept whole on one page. */
+  figure(draw: (x: number, y: number, width: number, size: number, measure: TextMeasure) => { shapes: Shape[]; height: number }): void {
+    // Drawn once to learn its height, then again where it lands.
+    const height = draw(this.x, 0, this.width, this.style.size, this.measure).height;
+    this.gap(this.style.blockGap / 2);
+    this.fit(height);
+    this.shapes.push(...draw(this.x, this.y, this.width, this.style.size, this.measure).shapes);
+    this.y += height;
+  }
+
   /** Blank lines to write on: who prepared and reviewed the assessment, when, and the decision. */
   signOff(): void {
     this.fit(SIGN_OFF_HEIGHT);
@@ -221,7 +240,7 @@ function layout(input: SheetInput, options: SheetOptions, style: Style, limits: 
   for (const block of recordBlocks(input, unitFormatter(options.units), limits)) {
     switch (block.kind) {
       case 'heading':
-        flow.heading(block.text);
+        flow.heading(block.text, block.aside);
         break;
       case 'text':
         flow.gap(style.blockGap / 2);
@@ -237,6 +256,9 @@ function layout(input: SheetInput, options: SheetOptions, style: Style, limits: 
       case 'bullets':
         flow.bullets(block.items);
         break;
+      case 'figure':
+        flow.figure(block.draw);
+        break;
       case 'signoff':
         flow.signOff();
         break;
@@ -247,10 +269,10 @@ function layout(input: SheetInput, options: SheetOptions, style: Style, limits: 
 
 /**
  * The record as one page when it fits in any of the tighter settings, else as several pages at the
- * compact size. `firstPage` is the record's first page number; `totalPages` is filled in by the
- * caller through `pageLabels` once the map page is counted.
+ * compact size. `firstPage` is the record's first page number; the page labels count
+ * `pagesBefore` pages ahead of it and `pagesAfter` behind it (the wind-limits page).
  */
-export function buildRecordPages(input: SheetInput, options: SheetOptions, firstPage: number, pagesBefore = firstPage - 1): Page[] {
+export function buildRecordPages(input: SheetInput, options: SheetOptions, firstPage: number, pagesBefore = firstPage - 1, pagesAfter = 0): Page[] {
   const paper = PAPER_SIZES[options.paper];
   const width = paper.width - 2 * MARGIN;
   const probe = titleBlock(input.summary.name, particulars(input), 'Page 9 of 9', MARGIN, MARGIN, width, options.measure);
@@ -268,7 +290,7 @@ export function buildRecordPages(input: SheetInput, options: SheetOptions, first
     }
   }
   bodies ??= layout(input, options, STYLES[STYLES.length - 1], LIMITS[0], top, limit);
-  const total = pagesBefore + bodies.length;
+  const total = pagesBefore + bodies.length + pagesAfter;
   return bodies.map((body, i) => {
     const title = titleBlock(input.summary.name, particulars(input), `Page ${firstPage + i} of ${total}`, MARGIN, MARGIN, width, options.measure);
     return { width: paper.width, height: paper.height, shapes: [...title.shapes, ...body, ...cautionBox(MARGIN, paper.height - MARGIN - caution, width, options.measure).shapes] };

@@ -14,10 +14,16 @@ import type { Actions } from '../panels/actions.js';
 import type { UnitSystem } from '../units/systems.js';
 import type { Store } from './store.js';
 import { keepUnits } from './preferences.js';
+import { computeEnvelope, IDLE_ENVELOPE, limitsKey, type EnvelopeGrid } from '../study/envelope.js';
+import { envelopeFile, type EnvelopeFileName } from '../study/envelope-files.js';
+import { windCase } from '../../../src/envelope/wind-case.js';
+import { isoSeconds } from '../../../src/report/sheet/review-facts.js';
+import { VERSION } from '../../../src/version.js';
 
 /** Carries out what the panels ask for, on the page's one store. */
 export class Controller implements Actions {
   private running: AbortController | null = null;
+  private computingEnvelope: AbortController | null = null;
   mapView: MapView | null = null;
 
   constructor(private readonly store: Store) {}
@@ -50,6 +56,7 @@ export class Controller implements Actions {
     if (outcome.ok) {
       // Results of another scenario (perhaps another site) would only mislead next to this one.
       this.running?.abort();
+      this.computingEnvelope?.abort();
       const state = this.store.get();
       this.store.update({
         draft: outcome.accepted.document,
@@ -59,6 +66,7 @@ export class Controller implements Actions {
         documentVersion: state.documentVersion + 1,
         study: null,
         run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
+        envelope: IDLE_ENVELOPE,
       });
       this.keep();
     } else {
@@ -149,11 +157,74 @@ export class Controller implements Actions {
     if (file) download(file.name, file.blob);
   }
 
-  /** The review sheet in the page's units on the paper chosen (the CLI's own is metric A4). */
+  /**
+   * The review sheet in the page's units on the paper chosen (the CLI's own is metric A4), with the
+   * wind-limits page when they were computed for the very scenario of the run (as `strewn sheet
+   * --envelope` demands).
+   */
   async exportReviewSheet(paper: 'a4' | 'letter'): Promise<void> {
-    const { study, units } = this.store.get();
+    const { study, units, envelope } = this.store.get();
     if (!study) return;
-    download(`sheet-${units}-${paper}.pdf`, await redrawReviewSheet(study, paper, units));
+    const outcome = envelope.outcome;
+    const record = outcome && outcome.hash === study.accepted.hash ? { envelope: outcome.envelope, scenarioHash: outcome.hash, version: VERSION, computedAt: outcome.computedAt } : undefined;
+    download(`sheet-${units}-${paper}.pdf`, await redrawReviewSheet(study, paper, units, record));
+  }
+
+  /** Computes the wind limits of the accepted scenario over `grid`, one grid point after another. */
+  async computeEnvelope(grid: EnvelopeGrid): Promise<void> {
+    const state = this.store.get();
+    if (this.computingEnvelope || state.draftIssues.length > 0) return;
+    const accepted = state.accepted;
+    const controller = new AbortController();
+    this.computingEnvelope = controller;
+    const previous = state.envelope.outcome;
+    this.store.update({ envelope: { phase: 'running', progress: 0, done: 0, planned: 0, message: '', outcome: previous } });
+    try {
+      const envelope = await computeEnvelope(accepted.scenario, grid, {
+        signal: controller.signal,
+        onProgress: (progress, done, planned) => this.store.update({ envelope: { ...this.store.get().envelope, progress, done, planned } }),
+      });
+      const outcome = { envelope, hash: accepted.hash, key: limitsKey(accepted.scenario), computedAt: isoSeconds(new Date()) };
+      this.store.update({ envelope: { phase: 'finished', progress: 1, done: envelope.casesFlown, planned: envelope.casesFlown, message: '', outcome } });
+    } catch (error) {
+      const current = this.store.get().envelope;
+      if (isCancellation(error)) this.store.update({ envelope: { ...current, phase: 'cancelled' } });
+      else this.store.update({ envelope: { ...current, phase: 'failed', message: error instanceof Error ? error.message : String(error) } });
+    } finally {
+      this.computingEnvelope = null;
+    }
+  }
+
+  cancelEnvelope(): void {
+    this.computingEnvelope?.abort(Object.assign(new Error('cancelled'), { name: 'AbortError' }));
+  }
+
+  /**
+   * Puts one grid point's wind into the scenario, as the envelope flew it: the mean wind's speed
+   * and direction, the gust at the same ratio, a profile scaled and turned with it (src/envelope/
+   * wind-case.ts). Written in SI numbers, which every unit system reads. The user then runs it.
+   */
+  loadWindCase(from: number, speed: number): void {
+    const { accepted } = this.store.get();
+    const wind = windCase(accepted.scenario, from, speed).weather.wind;
+    let draft = withValue(withValue(this.store.get().draft, ['weather', 'wind', 'speed'], speed), ['weather', 'wind', 'from'], from);
+    if (accepted.scenario.weather.wind.gust !== undefined && wind.gust !== undefined) draft = withValue(draft, ['weather', 'wind', 'gust'], round(wind.gust));
+    if (wind.profile) draft = withValue(draft, ['weather', 'wind', 'profile'], wind.profile.map((row) => ({ altitude: round(row.altitude), speed: round(row.speed), from: round(row.from) })));
+    const outcome = this.store.get().envelope.outcome;
+    const fresh = outcome !== null && outcome.key === limitsKey(accepted.scenario);
+    this.applyDraft(draft);
+    // The grid point is one the limits were computed for: they still apply, although rounding the
+    // gust and profile for the file may have moved the scenario's fingerprint by a last digit.
+    const after = this.store.get();
+    if (fresh && after.accepted !== accepted && after.envelope.outcome === outcome) {
+      this.store.update({ envelope: { ...after.envelope, outcome: { ...outcome, key: limitsKey(after.accepted.scenario) } } });
+    }
+  }
+
+  async exportEnvelopeFile(name: EnvelopeFileName): Promise<void> {
+    const { envelope, units } = this.store.get();
+    if (!envelope.outcome) return;
+    download(name, await envelopeFile(name, envelope.outcome, units));
   }
 
   setBackground(background: Background): Promise<string> {
@@ -164,4 +235,9 @@ export class Controller implements Actions {
   setLayerVisible(group: LayerGroup, visible: boolean): void {
     this.mapView?.setLayerVisible(group, visible);
   }
+}
+
+/** Six decimals: far below what a wind measurement resolves, and short in the saved file. */
+function round(x: number): number {
+  return Number(x.toFixed(6));
 }

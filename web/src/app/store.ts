@@ -2,6 +2,7 @@ import type { Issue } from '../../../src/scenario/types.js';
 import type { ScenarioDocument } from '../scenario/document.js';
 import type { AcceptedScenario } from '../scenario/validate.js';
 import type { Study } from '../study/compose.js';
+import type { EnvelopeState } from '../study/envelope.js';
 import type { UnitSystem } from '../units/systems.js';
 
 /** Where the current run is. */
@@ -28,6 +29,8 @@ export interface AppState {
   units: UnitSystem;
   run: RunState;
   study: Study | null;
+  /** The wind-limits computation of the "Wind limits" tab and its last result. */
+  envelope: EnvelopeState;
 }
 
 export type Listener = (state: AppState, previous: AppState) => void;

@@ -8,6 +8,7 @@ const TYPES: Record<string, string> = {
   geojson: 'application/geo+json',
   kml: 'application/vnd.google-earth.kml+xml',
   pdf: 'application/pdf',
+  svg: 'image/svg+xml',
 };
 
 export function mimeType(name: string): string {

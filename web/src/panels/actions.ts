@@ -2,6 +2,8 @@ import type { FieldPath } from '../scenario/document.js';
 import type { LayerGroup } from '../map/style.js';
 import type { UnitSystem } from '../units/systems.js';
 import type { Background } from '../map/tiles.js';
+import type { EnvelopeGrid } from '../study/envelope.js';
+import type { EnvelopeFileName } from '../study/envelope-files.js';
 
 /** What the panels can ask the page to do; app/controller.ts carries these out. */
 export interface Actions {
@@ -18,4 +20,8 @@ export interface Actions {
   exportReviewSheet(paper: 'a4' | 'letter'): Promise<void>;
   setBackground(background: Background): Promise<string>;
   setLayerVisible(group: LayerGroup, visible: boolean): void;
+  computeEnvelope(grid: EnvelopeGrid): Promise<void>;
+  cancelEnvelope(): void;
+  loadWindCase(from: number, speed: number): void;
+  exportEnvelopeFile(name: EnvelopeFileName): Promise<void>;
 }

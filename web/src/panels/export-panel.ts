@@ -1,6 +1,7 @@
 import type { AppState, Store } from '../app/store.js';
 import type { Actions } from './actions.js';
 import { el, replaceChildren } from './dom.js';
+import { ENVELOPE_FILES, type EnvelopeFileName } from '../study/envelope-files.js';
 
 /**
  * The "Files" tab: every file of the command line's results folder for the last run, with the
@@ -19,6 +20,13 @@ const DESCRIPTIONS: Record<string, string> = {
   'result.kml': 'Regions, zone and areas for map viewers (KML)',
   'scenario.json': 'The scenario as the engine read it, in SI units (JSON)',
   'review.json': 'Figures the review sheet needs beyond the summary (JSON)',
+};
+
+const ENVELOPE_DESCRIPTIONS: Record<EnvelopeFileName, string> = {
+  'envelope.pdf': 'Wind limits as a page of the review sheet, in the page\u2019s units (PDF)',
+  'envelope.svg': 'The polar chart of the wind limits, in the page\u2019s units (SVG)',
+  'envelope.json': 'Limits, grid and every grid point flown (JSON)',
+  'envelope.csv': 'Limit and first failing test per direction (CSV)',
 };
 
 /** The review sheet first: it is what most people came for. */
@@ -58,13 +66,53 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
       (error: unknown) => (sheetStatus.textContent = ` failed: ${error instanceof Error ? error.message : String(error)}`),
     );
   });
-  const sheetRow = el('div', { class: 'row' }, redraw, el('label', { text: 'on', attrs: { for: 'sheet-paper' } }), paper, sheetStatus);
+  const sheetRow = el(
+    'div',
+    { class: 'row' },
+    redraw,
+    el('label', { text: 'on', attrs: { for: 'sheet-paper' } }),
+    paper,
+    sheetStatus,
+    el('span', { class: 'muted', text: 'With the wind-limits page when the limits were computed for this very scenario.' }),
+  );
   sheetRow.hidden = true;
+  // The wind limits' files, once the "Wind limits" tab has computed them.
+  const envelopeHeading = el('p', { class: 'scenario-title', text: 'Wind limits' });
+  const envelopeList = el('ul', { class: 'export-list', data: { test: 'envelope-exports' } });
+  const envelopeStatus = el('p', { class: 'muted', attrs: { role: 'status' } });
+  const renderEnvelope = (state: AppState) => {
+    const outcome = state.envelope.outcome;
+    envelopeHeading.hidden = envelopeList.hidden = outcome === null;
+    if (outcome === null) return;
+    replaceChildren(
+      envelopeList,
+      ...ENVELOPE_FILES.map((name) => {
+        const button = el('button', { text: name, attrs: { type: 'button' }, data: { export: name } });
+        button.addEventListener('click', () => {
+          envelopeStatus.textContent = '';
+          actions.exportEnvelopeFile(name).catch((error: unknown) => (envelopeStatus.textContent = `${name} could not be made: ${error instanceof Error ? error.message : String(error)}`));
+        });
+        return el('li', {}, button, el('span', { class: 'muted', text: ` ${ENVELOPE_DESCRIPTIONS[name]}` }));
+      }),
+    );
+  };
+
   store.subscribe((state, previous) => {
     if (state.study !== previous.study) render(state);
+    if (state.envelope.outcome !== previous.envelope.outcome) renderEnvelope(state);
   });
   render(store.get());
-  return el('section', { class: 'panel-section', attrs: { 'aria-label': 'Files' } }, el('p', { class: 'note', text: 'The same files as the command line\u2019s results folder, made here in the page; nothing is sent anywhere.' }), list, sheetRow);
+  renderEnvelope(store.get());
+  return el(
+    'section',
+    { class: 'panel-section', attrs: { 'aria-label': 'Files' } },
+    el('p', { class: 'note', text: 'The same files as the command line\u2019s results folder, made here in the page; nothing is sent anywhere.' }),
+    list,
+    sheetRow,
+    envelopeHeading,
+    envelopeList,
+    envelopeStatus,
+  );
 }
 
 function rank(name: string): number {

@@ -3,6 +3,9 @@ import type { Study } from '../study/compose.js';
 import { grouped, inUnit, level, percent } from '../units/format.js';
 import { figureUnits, type FigureUnits } from '../units/systems.js';
 import { el, replaceChildren } from './dom.js';
+import { inputWords } from '../../../src/report/sheet/input-names.js';
+import type { InputSensitivity } from '../../../src/sensitivity/study.js';
+import { svgFigure } from './svg-figure.js';
 
 /**
  * The "Findings" tab: what the last run found, in the chosen units. Every figure comes from the
@@ -88,12 +91,23 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
     );
   }
   if (s.sensitivity && s.sensitivity.inputs.length > 0) {
+    const sensitivity = s.sensitivity;
+    const data = table(
+      'Shares as numbers',
+      'sensitivity',
+      ['Input', 'Landing scatter', 'Distance from pad'],
+      sensitivity.inputs.map((x) => [inputWords(x.input), percent(Math.max(0, x.scatter)), percent(Math.max(0, x.distance))]),
+    );
+    const chart = el('div', { class: 'figure-chart' });
+    void drawSensitivity(chart, sensitivity.inputs);
     out.push(
-      table(
-        'What drives the spread: share each input explains alone',
-        'sensitivity',
-        ['Input', 'Landing scatter', 'Distance from pad'],
-        s.sensitivity.inputs.map((x) => [x.input, percent(Math.max(0, x.scatter)), percent(Math.max(0, x.distance))]),
+      el(
+        'figure',
+        { class: 'sensitivity', data: { finding: 'sensitivity-chart' } },
+        el('figcaption', { text: 'What drives the landing spread: the share each input explains alone' }),
+        chart,
+        el('p', { class: 'note', text: `The rest is turbulence and interactions. Method: ${sensitivity.method}.` }),
+        el('details', {}, el('summary', { text: 'As a table' }), data),
       ),
     );
   }
@@ -104,3 +118,21 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
   return out;
 }
 
+/**
+ * The bars of the review sheet's record page, drawn from the same shapes. The drawing modules
+ * measure text with pdfkit; a finished run has loaded them already (compose.ts), so this is quick.
+ */
+async function drawSensitivity(holder: HTMLElement, inputs: InputSensitivity[]): Promise<void> {
+  try {
+    await import('../exports/pdf-fonts.js');
+    const [{ sensitivityFigure }, { renderSvg }, { defaultMeasure }] = await Promise.all([
+      import('../../../src/report/sheet/sensitivity-bars.js'),
+      import('../../../src/report/sheet/render-svg.js'),
+      import('../../../src/report/sheet/fonts.js'),
+    ]);
+    const page = sensitivityFigure(inputs, 270, defaultMeasure());
+    holder.replaceChildren(svgFigure(renderSvg(page, 'What drives the landing spread'), `Bar chart: ${inputs.map((x) => `${inputWords(x.input)} ${percent(Math.max(0, x.scatter))} of the scatter`).join(', ')}`));
+  } catch (error) {
+    holder.replaceChildren(el('p', { class: 'muted', text: `The chart could not be drawn (${error instanceof Error ? error.message : String(error)}); the table below has the numbers.` }));
+  }
+}
