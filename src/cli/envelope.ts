@@ -16,6 +16,7 @@ import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
+import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 
 export const ENVELOPE_HELP = `Usage: strewn envelope <scenario.json> [options]
 
@@ -51,18 +52,12 @@ function grid(option: string, text: string): number[] {
 
 export async function envelopeCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseCommandArgs('envelope', args, {
+    ...STUDY_OPTIONS,
     directions: { type: 'string' },
     speeds: { type: 'string' },
-    samples: { type: 'string' },
-    seed: { type: 'string' },
-    workers: { type: 'string' },
     exhaustive: { type: 'boolean' },
     units: { type: 'string' },
     paper: { type: 'string' },
-    out: { type: 'string' },
-    force: { type: 'boolean' },
-    quiet: { type: 'boolean' },
-    json: { type: 'boolean' },
   });
   if (values.help) {
     process.stdout.write(ENVELOPE_HELP);
@@ -89,10 +84,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), values.force === true);
   if (!quiet && !json) printWarnings(loaded.warnings);
 
-  const controller = new AbortController();
-  const onSignal = () => controller.abort(Object.assign(new Error('cancelled'), { name: 'AbortError' }));
-  process.once('SIGINT', onSignal);
-  process.once('SIGTERM', onSignal);
+  const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
   // One set of threads for the whole grid: starting them per grid point would cost more than flying.
   const keeper = reusableWorkers(nodeWorkerFactory());
@@ -105,7 +97,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
       samples,
       seed,
       exhaustive: values.exhaustive === true,
-      signal: controller.signal,
+      signal: interrupt.signal,
       execute: (sc, n, s, signal) => runInPool({ scenario: sc, samples: n, seed: s }, { workers, createWorker, signal }),
       onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
     });
@@ -124,8 +116,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     keeper.close();
     bar.end();
     out.discard();
-    process.off('SIGINT', onSignal);
-    process.off('SIGTERM', onSignal);
+    interrupt.dispose();
   }
 }
 

@@ -13,6 +13,7 @@ import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
+import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
@@ -37,16 +38,7 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
 export async function runCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs('run', args, {
-    samples: { type: 'string' },
-    seed: { type: 'string' },
-    workers: { type: 'string' },
-    out: { type: 'string' },
-    force: { type: 'boolean' },
-    quiet: { type: 'boolean' },
-    json: { type: 'boolean' },
-    'max-samples': { type: 'string' },
-  });
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -69,13 +61,10 @@ export async function runCommand(args: string[]): Promise<number> {
   const out = OutputFolder.prepare(outDir, values.force === true);
   if (!quiet && !json) printWarnings(loaded.warnings);
 
-  const controller = new AbortController();
-  const onSignal = () => controller.abort(Object.assign(new Error('cancelled'), { name: 'AbortError' }));
-  process.once('SIGINT', onSignal);
-  process.once('SIGTERM', onSignal);
+  const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
   try {
-    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: controller.signal, onProgress: (p) => bar.update(p) });
+    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
     bar.end();
     const set = landingSetFromRun(run, scenario);
     const analysis = set.east.length >= 10 ? analyze(set, scenario.site, scenario.run) : null;
@@ -86,7 +75,7 @@ export async function runCommand(args: string[]): Promise<number> {
     // event loop: two turns (one is not enough) let it reach its handler; honour it before the
     // results appear.
     for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
-    controller.signal.throwIfAborted();
+    interrupt.signal.throwIfAborted();
     out.commit();
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
@@ -94,7 +83,6 @@ export async function runCommand(args: string[]): Promise<number> {
   } finally {
     bar.end();
     out.discard();
-    process.off('SIGINT', onSignal);
-    process.off('SIGTERM', onSignal);
+    interrupt.dispose();
   }
 }
