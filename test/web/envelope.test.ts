@@ -1,9 +1,9 @@
-import { mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { inputWords } from '../../src/report/sheet/input-names.js';
-import { ARTIFACTS, buildWebApp, launchChromium, mapIdle, runAndWait, serveStatic, setField, watchedPage, type StaticServer, type WatchedPage } from './harness.js';
+import { runAndWait, setField, workspaceSession } from './harness.js';
 
 /**
  * The "Wind limits" tab and the sensitivity bars of the Findings tab, in Debian's chromium: the
@@ -12,44 +12,10 @@ import { ARTIFACTS, buildWebApp, launchChromium, mapIdle, runAndWait, serveStati
  * test/.artifacts/web/screenshots/.
  */
 
-const DIST = join(ARTIFACTS, 'dist-envelope');
-const SHOTS = join(ARTIFACTS, 'screenshots');
-const WORK = join(ARTIFACTS, 'work-envelope');
 const TIMEOUT = 180_000;
 
-let server: StaticServer;
-let browser: Browser;
-let current: WatchedPage | null = null;
-
-beforeAll(async () => {
-  rmSync(WORK, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  mkdirSync(WORK, { recursive: true });
-  await buildWebApp(DIST);
-  server = await serveStatic(DIST, '/strewn/');
-  browser = await launchChromium();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  const watched = current;
-  current = null;
-  if (!watched) return;
-  await watched.context.close();
-  expect(watched.offsite, 'requests that left the machine').toEqual([]);
-  expect(watched.errors, 'console errors').toEqual([]);
-});
-
-async function openWorkspace(): Promise<Page> {
-  current = await watchedPage(browser);
-  await current.page.goto(server.url);
-  await mapIdle(current.page);
-  return current.page;
-}
+const session = workspaceSession('-envelope');
+const openWorkspace = () => session.open();
 
 async function fill(page: Page, test: string, value: string): Promise<void> {
   const input = page.locator(`[data-test="${test}"]`);
@@ -95,7 +61,7 @@ describe('wind limits in the page', () => {
       expect(await chart.locator('#verdict').textContent()).toContain('Forecast direction lies outside the grid of directions');
       expect(await page.locator('[data-test="envelope-limits"] tbody tr').count()).toBe(2);
       await page.locator('[data-test="envelope-chart"]').scrollIntoViewIfNeeded();
-      await page.screenshot({ path: join(SHOTS, 'envelope-01-chart.png') });
+      await page.screenshot({ path: join(session.shots, 'envelope-01-chart.png') });
 
       // Click on the chart three quarters of the way out along the east spoke: wind from 90°, at
       // the grid speed nearest to three quarters of the outermost ring.
@@ -110,7 +76,7 @@ describe('wind limits in the page', () => {
       expect(await page.locator('[data-test="envelope-stale"]').isHidden()).toBe(true);
       await expect.poll(() => page.locator('[data-test="envelope-chart"] svg #forecast').getAttribute('data-from')).toBe('90');
       expect(await page.locator('[data-test="envelope-chart"] svg #verdict').textContent()).toMatch(/Forecast .* from 90° is (inside|OUTSIDE) the limits/);
-      await page.screenshot({ path: join(SHOTS, 'envelope-02-picked.png') });
+      await page.screenshot({ path: join(session.shots, 'envelope-02-picked.png') });
 
       // The Setup tab shows the loaded wind.
       await page.locator('[data-tab="setup"]').click();
@@ -126,7 +92,7 @@ describe('wind limits in the page', () => {
       await page.locator('[data-tab="files"]').click();
       expect(await page.locator('[data-test="envelope-exports"] button').allInnerTexts()).toEqual(['envelope.pdf', 'envelope.svg', 'envelope.json', 'envelope.csv']);
       const [file] = await Promise.all([page.waitForEvent('download'), page.locator('[data-export="envelope.json"]').click()]);
-      const path = join(WORK, file.suggestedFilename());
+      const path = join(session.work, file.suggestedFilename());
       await file.saveAs(path);
       const saved = JSON.parse(readFileSync(path, 'utf8'));
       expect(saved.scenarioHash).toBe(hashBefore);
@@ -153,7 +119,7 @@ describe('wind limits in the page', () => {
       expect(await rows.first().locator('text').first().textContent()).toBe(inputWords(first));
       for (const label of await rows.locator('text:first-child').allTextContents()) expect(label).not.toMatch(/^(wind|launch|motor|vehicle|recovery)\./);
       await figure.scrollIntoViewIfNeeded();
-      await page.screenshot({ path: join(SHOTS, 'envelope-03-findings-bars.png') });
+      await page.screenshot({ path: join(session.shots, 'envelope-03-findings-bars.png') });
     },
     TIMEOUT,
   );

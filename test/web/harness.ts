@@ -1,5 +1,7 @@
 import { createServer, type Server } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
+import { mkdirSync, rmSync } from 'node:fs';
+import { afterAll, afterEach, beforeAll, expect } from 'vitest';
 import { extname, join, normalize, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -125,4 +127,52 @@ export async function setField(page: Page, path: string, value: string): Promise
   const input = page.locator(`input[data-path="${path}"]`);
   await input.fill(value);
   await input.press('Enter');
+}
+
+/**
+ * The set-up every workspace test file shares: build the page into `dist<suffix>`, serve it from a
+ * sub-folder, one chromium for the file, and after each test a check that nothing left the machine
+ * and nothing was logged as an error. `suffix` keeps files that run side by side apart.
+ */
+export function workspaceSession(suffix: string): { shots: string; work: string; open(): Promise<Page> } {
+  const dist = join(ARTIFACTS, `dist${suffix}`);
+  const shots = join(ARTIFACTS, 'screenshots');
+  const work = join(ARTIFACTS, `work${suffix}`);
+  let server: StaticServer;
+  let browser: Browser;
+  let current: WatchedPage | null = null;
+
+  beforeAll(async () => {
+    rmSync(work, { recursive: true, force: true });
+    mkdirSync(shots, { recursive: true });
+    mkdirSync(work, { recursive: true });
+    await buildWebApp(dist);
+    server = await serveStatic(dist, '/strewn/');
+    browser = await launchChromium();
+  }, 180_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+
+  afterEach(async () => {
+    const watched = current;
+    current = null;
+    if (!watched) return;
+    await watched.context.close();
+    expect(watched.offsite, 'requests that left the machine').toEqual([]);
+    expect(watched.errors, 'console errors').toEqual([]);
+  });
+
+  return {
+    shots,
+    work,
+    async open() {
+      current = await watchedPage(browser);
+      await current.page.goto(server.url);
+      await mapIdle(current.page);
+      return current.page;
+    },
+  };
 }

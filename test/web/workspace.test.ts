@@ -1,13 +1,13 @@
 import { execFileSync } from 'node:child_process';
-import { cpSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { crc32, deflateSync } from 'node:zlib';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { createLocalFrame } from '../../src/analysis/geodesy.js';
 import { CAUTION } from '../../src/report/caution.js';
 import type { RunSummary } from '../../src/report/run-summary.js';
-import { ARTIFACTS, PROJECT, buildWebApp, launchChromium, mapIdle, runAndWait, serveStatic, setField, watchedPage, type StaticServer, type WatchedPage } from './harness.js';
+import { ARTIFACTS, PROJECT, mapIdle, runAndWait, setField, workspaceSession } from './harness.js';
 
 /**
  * The map workspace in Debian's chromium: built with Vite, served from a sub-folder of a static
@@ -19,48 +19,13 @@ import { ARTIFACTS, PROJECT, buildWebApp, launchChromium, mapIdle, runAndWait, s
 
 /** Each test runs small samples; the bound leaves room for a busy machine. */
 const TEST_TIMEOUT = 120_000;
-const DIST = join(ARTIFACTS, 'dist');
-const SHOTS = join(ARTIFACTS, 'screenshots');
-const WORK = join(ARTIFACTS, 'work');
 
-let server: StaticServer;
-let browser: Browser;
-let current: WatchedPage | null = null;
-
-beforeAll(async () => {
-  rmSync(WORK, { recursive: true, force: true });
-  mkdirSync(SHOTS, { recursive: true });
-  mkdirSync(WORK, { recursive: true });
-  await buildWebApp(DIST);
-  server = await serveStatic(DIST, '/strewn/');
-  browser = await launchChromium();
-}, 180_000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-afterEach(async () => {
-  // Every test: nothing fetched from outside, nothing logged as an error.
-  const watched = current;
-  current = null;
-  if (!watched) return;
-  await watched.context.close();
-  expect(watched.offsite, 'requests that left the machine').toEqual([]);
-  expect(watched.errors, 'console errors').toEqual([]);
-});
-
-async function openWorkspace(): Promise<Page> {
-  current = await watchedPage(browser);
-  await current.page.goto(server.url);
-  await mapIdle(current.page);
-  return current.page;
-}
+const session = workspaceSession('');
+const openWorkspace = () => session.open();
 
 async function shot(page: Page, name: string): Promise<void> {
   await mapIdle(page);
-  await page.screenshot({ path: join(SHOTS, `${name}.png`) });
+  await page.screenshot({ path: join(session.shots, `${name}.png`) });
 }
 
 async function summaryOf(page: Page): Promise<RunSummary> {
@@ -120,7 +85,7 @@ describe('map workspace', () => {
     expect(sources.track).toBe(1);
 
     // The same scenario through the command line: save it from the page, run it, compare.
-    const folder = join(WORK, 'cli');
+    const folder = join(session.work, 'cli');
     mkdirSync(folder, { recursive: true });
     cpSync(join(PROJECT, 'scenarios', 'motors'), join(folder, 'motors'), { recursive: true });
     await page.locator('[data-tab="setup"]').click();
@@ -152,10 +117,10 @@ describe('map workspace', () => {
     // Result files: the same bytes as the command line's folder.
     await page.locator('[data-tab="files"]').click();
     for (const name of ['contours.geojson', 'keepout.geojson', 'landings.csv', 'areas.csv', 'result.kml', 'summary.json']) {
-      const path = await download(page, `[data-export="${name}"]`, join(WORK, 'page-files'));
+      const path = await download(page, `[data-export="${name}"]`, join(session.work, 'page-files'));
       expectSameText(readFileSync(path, 'utf8'), readFileSync(join(folder, 'out', name), 'utf8'), name);
     }
-    const sheet = await download(page, '[data-export="sheet.pdf"]', join(WORK, 'page-files'));
+    const sheet = await download(page, '[data-export="sheet.pdf"]', join(session.work, 'page-files'));
     expect(readFileSync(sheet).subarray(0, 5).toString('latin1')).toBe('%PDF-');
 
     // Pointing at a landing tells its sample, mode, apogee and flight time (checked against the
@@ -191,7 +156,7 @@ describe('map workspace', () => {
     // The review sheet redrawn in the page's units, as `strewn sheet --units imperial` would.
     await page.locator('[data-tab="files"]').click();
     await page.locator('#sheet-paper').selectOption('letter');
-    const imperialSheet = await download(page, '[data-export="sheet-redrawn"]', join(WORK, 'page-files'));
+    const imperialSheet = await download(page, '[data-export="sheet-redrawn"]', join(session.work, 'page-files'));
     expect(imperialSheet.endsWith('sheet-imperial-letter.pdf')).toBe(true);
     const pdf = readFileSync(imperialSheet);
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
@@ -408,7 +373,7 @@ describe('map workspace', () => {
     await shot(page, '11-twenty-thousand');
 
     const cliStarted = Date.now();
-    cliRun(join(PROJECT, 'scenarios', 'club-rocket.json'), join(WORK, 'timing-out'), ['--samples', '20000']);
+    cliRun(join(PROJECT, 'scenarios', 'club-rocket.json'), join(session.work, 'timing-out'), ['--samples', '20000']);
     const cliWall = (Date.now() - cliStarted) / 1000;
     const figure = { samples: 20_000, pageWall_s: pageWall, pageFlights_s: pageFlights, cliWall_s: cliWall, ratio: pageWall / cliWall };
     writeFileSync(join(ARTIFACTS, 'timing.json'), JSON.stringify(figure, null, 2) + '\n');
