@@ -2,12 +2,9 @@ import { basename, extname, join } from 'node:path';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { runInPool } from '../pool/pool.js';
 import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
-import { analyze } from '../analysis/index.js';
-import { landingSetFromRun } from '../analysis/from-run.js';
 import { buildResultFiles } from '../report/result-files.js';
 import { formatRunSummary } from '../report/run-text.js';
-import { buildRunSummary } from '../report/run-summary.js';
-import { studySensitivity } from '../sensitivity/study.js';
+import { studyOutcome } from '../report/study.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
@@ -66,10 +63,7 @@ export async function runCommand(args: string[]): Promise<number> {
   try {
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
     bar.end();
-    const set = landingSetFromRun(run, scenario);
-    const analysis = set.east.length >= 10 ? analyze(set, scenario.site, scenario.run) : null;
-    const sensitivity = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0 ? studySensitivity(scenario, run) : undefined;
-    const summary = buildRunSummary(scenario, loaded.hash, run, analysis, loaded.warnings, sensitivity);
+    const { set, analysis, summary } = studyOutcome(scenario, loaded.hash, run, loaded.warnings);
     for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
     // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
     // event loop: two turns (one is not enough) let it reach its handler; honour it before the

@@ -1,20 +1,15 @@
-import { analyze, type AnalysisResult } from '../../../src/analysis/index.js';
-import { landingSetFromRun } from '../../../src/analysis/from-run.js';
+import type { AnalysisResult } from '../../../src/analysis/index.js';
 import type { LandingSet } from '../../../src/analysis/types.js';
 import type { RunResult } from '../../../src/dispersion/results.js';
-import { buildRunSummary, type RunSummary } from '../../../src/report/run-summary.js';
-import { studySensitivity } from '../../../src/sensitivity/study.js';
+import type { RunSummary } from '../../../src/report/run-summary.js';
+import { studyOutcome } from '../../../src/report/study.js';
 import { blobParts, mimeType } from '../exports/download.js';
 import type { AcceptedScenario } from '../scenario/validate.js';
 
 /**
- * From a finished run to everything the page shows and exports, composed step for step as
- * `strewn run` composes it (src/cli/run.ts): landing set, analysis, sensitivity, summary, result
- * files. Keep the two in step: the browser test compares the page with the command line.
+ * From a finished run to everything the page shows and exports: the same `studyOutcome` as
+ * `strewn run`, then the same result files. The browser test compares the page with the command line.
  */
-
-/** The command line analyses a run only when at least this many samples landed (src/cli/run.ts). */
-export const MIN_LANDINGS_FOR_ANALYSIS = 10;
 
 export interface ResultFile {
   name: string;
@@ -49,10 +44,7 @@ async function resultWriters() {
 export async function composeStudy(accepted: AcceptedScenario, run: RunResult, flightTime_ms: number): Promise<Study> {
   const started = performance.now();
   const { scenario } = accepted;
-  const set = landingSetFromRun(run, scenario);
-  const analysis = set.east.length >= MIN_LANDINGS_FOR_ANALYSIS ? analyze(set, scenario.site, scenario.run) : null;
-  const sensitivity = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0 ? studySensitivity(scenario, run) : undefined;
-  const summary = buildRunSummary(scenario, accepted.hash, run, analysis, accepted.warnings, sensitivity);
+  const { set, analysis, summary } = studyOutcome(scenario, accepted.hash, run, accepted.warnings);
   let files: ResultFile[] = [];
   let filesError: string | null = null;
   try {
