@@ -1,6 +1,13 @@
 import type { RunSummary } from './run-summary.js';
 import { CAUTION } from './caution.js';
 
+/** A probability as a percentage with two significant digits ("0 %", "0.01 %", "2.9 %"). */
+function percent(p: number): string {
+  if (!Number.isFinite(p)) return 'n/a';
+  if (p === 0) return '0 %';
+  return `${Number((p * 100).toPrecision(2))} %`;
+}
+
 function metres(x: number): string {
   return Number.isFinite(x) ? `${Math.round(x).toLocaleString('en')} m` : 'n/a';
 }
@@ -21,7 +28,10 @@ export function formatRunSummary(s: RunSummary, folder: string): string {
   if (Number.isFinite(s.keepOut.area_m2)) {
     lines.push(`  keep-out zone  ${Math.round(s.keepOut.area_m2).toLocaleString('en')} m², reaches ${metres(s.keepOut.maxDistance_m)} (level ${s.keepOut.level}, margin ${metres(s.keepOut.margin_m)})`);
   }
-  for (const a of s.areas) lines.push(`  area           ${a.name} (${a.kind}): ${a.hits} hits, probability ${a.probability.toPrecision(2)}, 95 % upper bound ${a.upper95.toPrecision(2)}`);
+  for (const a of s.areas) {
+    const hits = `${a.hits.toLocaleString('en')} ${a.hits === 1 ? 'hit' : 'hits'}`;
+    lines.push(`  area           ${a.name} (${a.kind}): ${hits}, chance per flight ${percent(a.probability)}, 95 % upper bound ${percent(a.upper95)}`);
+  }
   for (const w of s.warnings) lines.push(`  warning        ${w}`);
   lines.push(`  results        ${folder}`);
   lines.push('');
