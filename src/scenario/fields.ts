@@ -281,6 +281,8 @@ export interface SpreadRule {
   dimension: Dimension;
   /** 'only': must be "N %"; 'never': a percentage has no meaning (a compass direction). */
   relative: 'allowed' | 'only' | 'never';
+  /** Why a percentage has no meaning here (default: a compass direction). */
+  neverWhy?: string;
 }
 
 /** The unit each parameter's absolute spread is in; `recovery.rate` scales drag areas, so it is relative only. */
@@ -298,6 +300,8 @@ export const SPREAD_RULES: Record<UncertaintyName, SpreadRule> = {
   'vehicle.drag': { dimension: 'number', relative: 'allowed' },
   'recovery.delay': { dimension: 'time', relative: 'allowed' },
   'recovery.rate': { dimension: 'number', relative: 'only' },
+  'motor.misalignment': { dimension: 'angle', relative: 'never', neverWhy: 'the nominal misalignment is 0, so a percentage of it is nothing' },
+  'vehicle.cg': { dimension: 'length', relative: 'allowed' },
 };
 
 const SPREAD_FIELDS = ['sd', 'limit', 'range'];
@@ -306,7 +310,7 @@ function readSpreadValue(value: unknown, rule: SpreadRule, bounds: Bounds, path:
   const r = readQuantity(value, rule.dimension, bounds, true);
   if (!r.ok) return { ok: false, problems: r.problems.map((p) => ({ ...p, path })) };
   if (rule.relative === 'never' && r.value.relative) {
-    return fail(`${r.value.shown} is relative, but a compass direction cannot vary by a percentage; give degrees, e.g. '5 deg'`, path);
+    return fail(`${r.value.shown} is relative, but ${rule.neverWhy ?? 'a compass direction cannot vary by a percentage'}; give degrees, e.g. '${rule.neverWhy ? '0.2' : '5'} deg'`, path);
   }
   if (rule.relative === 'only' && !r.value.relative) {
     return fail(`${r.value.shown} is not relative; this spread scales every stage's drag area, so write it as a percentage, e.g. '10 %'`, path);
