@@ -34,6 +34,8 @@ export interface FlightOptions {
   inertiaScale: number;
   /** Rigid body: false turns off both damping moments — for tests only. */
   damping: boolean;
+  /** Rigid body: multiplies both damping moments — for tests only. */
+  dampingScale: number;
   /** Replaces the scenario's atmosphere (tests against constant-density closed forms). */
   air?: Air;
   /** Replaces the rotating WGS 84 Earth at the pad (tests against uniform-gravity closed forms). */
@@ -52,6 +54,7 @@ export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
   normalForceScale: 1,
   inertiaScale: 1,
   damping: true,
+  dampingScale: 1,
 };
 
 /** What one flight produced. Reused between flights. */
@@ -368,7 +371,7 @@ export class FlightModel implements OdeSystem {
         // Aerodynamic and jet damping on the rate across the axis.
         const mdot = this.motor !== null && totalImpulse > 0 ? (this.motor.propellantMass * thrust) / totalImpulse : 0;
         const jet = this.motorEnd - xcg;
-        const c = hq * s2 + mdot * jet * jet;
+        const c = this.options.dampingScale * (hq * s2 + mdot * jet * jet);
         const wa = wx * ux + wy * uy + wz * uz;
         mx -= c * (wx - wa * ux);
         my -= c * (wy - wa * uy);
