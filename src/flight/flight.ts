@@ -64,6 +64,9 @@ export interface FlightResult {
   north: number;
   apogee: number;
   apogeeTime: number;
+  /** Where the apogee was, m east and north of the pad (0, 0 until it is reached). */
+  apogeeEast: number;
+  apogeeNorth: number;
   flightTime: number;
   impactSpeed: number;
   /** Speed along the rail when the rocket left it, m/s (NaN when there is no rail). */
@@ -75,7 +78,7 @@ export interface FlightResult {
 
 export function emptyResult(): FlightResult {
   return {
-    status: 0, east: 0, north: 0, apogee: 0, apogeeTime: 0, flightTime: 0,
+    status: 0, east: 0, north: 0, apogee: 0, apogeeTime: 0, apogeeEast: 0, apogeeNorth: 0, flightTime: 0,
     impactSpeed: 0, railExitSpeed: NaN, steps: 0, maxMach: 0,
   };
 }
@@ -439,6 +442,8 @@ export class FlightModel implements OdeSystem {
     out.railExitSpeed = NaN;
     out.apogee = 0;
     out.apogeeTime = 0;
+    out.apogeeEast = 0;
+    out.apogeeNorth = 0;
     out.steps = 0;
     out.maxMach = 0;
 
@@ -482,6 +487,8 @@ export class FlightModel implements OdeSystem {
     if (track !== null) track(t, y);
     if (kind !== 'rocket' && y[5] <= 0) {
       apogeeReached = true;
+      out.apogeeEast = y[0];
+      out.apogeeNorth = y[1];
       recovery.onApogee(t, y[2]);
       recovery.deployDue(t);
     }
@@ -609,6 +616,8 @@ export class FlightModel implements OdeSystem {
         out.apogee = Math.max(out.apogee, ye[2]);
         recovery.onApogee(t, ye[2]);
         out.apogeeTime = t;
+        out.apogeeEast = ye[0];
+        out.apogeeNorth = ye[1];
         recovery.deployDue(t);
       } else {
         recovery.onAltitude(event - EV_STAGE, t);

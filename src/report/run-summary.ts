@@ -7,6 +7,7 @@ import { FAILURE_REASONS } from '../flight/status.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import { VERSION } from '../version.js';
 import { CAUTION } from './caution.js';
+import { nominalFigures, type ApogeePoint, type StabilitySummary } from './stability.js';
 import type { StudySensitivity } from '../sensitivity/study.js';
 
 export interface Spread5 {
@@ -32,6 +33,10 @@ export interface RunSummary extends SummaryParts {
   modes: { name: string; probability: number; samples: number; landed: number }[];
   /** What drives the spread of the landings (absent when the scenario has no spreads). */
   sensitivity?: StudySensitivity;
+  /** Rockets with a shape: stability figures (scenario format, "vehicle.shape"). */
+  stability?: StabilitySummary;
+  /** Where the nominal flight's apogee is (absent when it failed before apogee). */
+  nominalApogee?: ApogeePoint;
   scenarioWarnings: string[];
   caution: string;
 }
@@ -109,7 +114,14 @@ export function buildRunSummary(
     })),
     ...parts,
     ...(sensitivity ? { sensitivity } : {}),
+    ...nominalParts(scenario),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };
+}
+
+/** The stability figures and the nominal apogee point, from one nominal flight. */
+function nominalParts(scenario: Scenario): { stability?: StabilitySummary; nominalApogee?: ApogeePoint } {
+  const f = nominalFigures(scenario);
+  return { ...(f.stability ? { stability: f.stability } : {}), ...(f.apogee ? { nominalApogee: f.apogee } : {}) };
 }
