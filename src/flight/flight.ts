@@ -389,9 +389,13 @@ export class FlightModel implements OdeSystem {
         dux = wy * y[8] - wz * y[7];
         duy = wz * y[6] - wx * y[8];
         duz = wx * y[7] - wy * y[6];
-        dpx = wy * pz - wz * py;
-        dpy = wz * px - wx * pz;
-        dpz = wx * py - wy * px;
+        // p matters only with a misalignment; held still otherwise, so its drawn direction cannot
+        // change the step sizes (every sample without a misalignment flies the same flight).
+        if (this.sinMis !== 0) {
+          dpx = wy * pz - wz * py;
+          dpy = wz * px - wx * pz;
+          dpz = wx * py - wy * px;
+        }
       }
     }
     if (this.onRail) {
