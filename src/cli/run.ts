@@ -17,7 +17,8 @@ import { honourInterrupt, writeStudyFiles } from './study-files.js';
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
 Flies every Monte-Carlo sample of the scenario and writes the results into a folder:
-landings.csv, summary.json, contours.geojson, keepout.geojson, landings.geojson, areas.csv,
+landings.csv, summary.json, contours.geojson, keepout.geojson, landings.fgb (every landing, FlatGeobuf),
+landings.geojson (a stated, stratified subset above 100,000 landings), areas.csv,
 result.kml, the review sheet (sheet.pdf, map.svg) and what redraws it (scenario.json, review.json;
 see strewn sheet). The folder appears only when the run has finished; a failed or cancelled run
 leaves nothing behind.

@@ -34,6 +34,11 @@ export interface RunSummary extends SummaryParts {
   sensitivity?: StudySensitivity;
   scenarioWarnings: string[];
   caution: string;
+  /**
+   * Landings in each landing file: all of them, except that landings.geojson holds a stated,
+   * stratified subset (points, of, method) above 100,000 landings (src/analysis/thinning.ts).
+   */
+  landingFiles?: Record<string, { points: number; of?: number; method?: string }>;
 }
 
 function round(x: number, decimals: number): number {
