@@ -1,8 +1,8 @@
 import { chunkRanges, defaultChunkSize, type Progress } from '../dispersion/execute.js';
 import { planModes } from '../dispersion/modes.js';
-import { assembleChunks, type RunResult } from '../dispersion/results.js';
-import type { ChunkResult } from '../dispersion/runner.js';
-import { resultColumns } from '../dispersion/columns.js';
+import type { RunResult } from '../dispersion/results.js';
+import { allocateChunk, type ChunkResult } from '../dispersion/runner.js';
+import { placeColumns, resultColumns } from '../dispersion/columns.js';
 import { ChunkFailedError, cancelledError } from './errors.js';
 import type { EngineJob, PoolWorker, PoolWorkerFactory } from './protocol.js';
 
@@ -43,7 +43,10 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
   const chunkSize = options.chunkSize ?? defaultChunkSize(range[1], options.workers);
   const ranges = chunkRanges(range[1], chunkSize).map(([start, count]): [number, number] => [range[0] + start, count]);
   const laneCount = Math.min(options.workers, ranges.length);
-  const finished: ChunkResult[] = [];
+  // Each chunk is copied into the run's columns as it arrives and then dropped, so a large run
+  // never holds its samples twice.
+  const all = allocateChunk(range[0], range[1]);
+  const filled = new Uint8Array(range[1]);
   const live = new Set<PoolWorker>();
   const started = Date.now();
   let nextRange = 0;
@@ -102,7 +105,9 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
     try {
       while (nextRange < ranges.length && !halted) {
         const [start, count] = ranges[nextRange++];
-        finished.push(await fly(start, count));
+        const chunk = await fly(start, count);
+        placeColumns(all, chunk);
+        filled.fill(1, chunk.start - range[0], chunk.start - range[0] + chunk.count);
         done += count;
         options.onProgress?.({ done, total: range[1], rate: done / Math.max(1e-3, (Date.now() - started) / 1000) });
       }
@@ -130,7 +135,9 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
     for (const worker of live) worker.terminate();
     live.clear();
   }
-  return assembleChunks(samples, finished, planModes(job.scenario.failures, samples), seed, range);
+  const missing = filled.indexOf(0);
+  if (missing >= 0) throw new Error(`internal error: sample ${range[0] + missing} was never flown`);
+  return { ...all, plan: planModes(job.scenario.failures, samples), seed };
 }
 
 /** A worker that answers with the wrong samples must not slip through into the results. */
