@@ -1,7 +1,7 @@
 import { basename, extname, join } from 'node:path';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { runInPool } from '../pool/pool.js';
-import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
+import { nodeWorkerCount, nodeWorkerFactory, prestartWorkers } from '../pool/node.js';
 import { formatRunSummary } from '../report/run-text.js';
 import { shardRange } from '../dispersion/shards.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
@@ -12,7 +12,8 @@ import { UsageError } from './errors.js';
 import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 import { parseShardOption, shardFolderName } from './shard-option.js';
 import { writeShardFolder } from './shard-folder.js';
-import { honourInterrupt, writeStudyFiles } from './study-files.js';
+import { honourInterrupt } from './study-files-light.js';
+import { PhaseTimer } from './phase-timer.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
@@ -41,6 +42,8 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
 export async function runCommand(args: string[]): Promise<number> {
+  const timer = new PhaseTimer();
+  timer.lap('start and load');
   const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
@@ -55,6 +58,28 @@ export async function runCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
+  // The workers load their code while this thread reads the scenario and flies the nominal flight.
+  const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
+  try {
+    return await runStudy(path, values, { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker: prestarted.createWorker });
+  } finally {
+    prestarted.dispose();
+  }
+}
+
+interface RunSettings {
+  maxSamples: number;
+  samplesOption: number | undefined;
+  workers: number;
+  seedOption: string | undefined;
+  quiet: boolean;
+  json: boolean;
+  timer: PhaseTimer;
+  createWorker: ReturnType<typeof nodeWorkerFactory>;
+}
+
+async function runStudy(path: string, values: Record<string, unknown>, settings: RunSettings): Promise<number> {
+  const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker } = settings;
   const loaded = loadForCommand(path, maxSamples);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
@@ -63,16 +88,20 @@ export async function runCommand(args: string[]): Promise<number> {
   const outDir = shard
     ? join((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-shards`), shardFolderName(shard))
     : ((values.out as string | undefined) ?? join('results', basename(path, extname(path))));
-  const createWorker = nodeWorkerFactory();
   const out = OutputFolder.prepare(outDir, values.force === true);
   if (!quiet && !json) printWarnings(loaded.warnings);
 
   const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
+  timer.lap('scenario and nominal flight');
   try {
     const range = shard ? shardRange(samples, shard) : undefined;
+    // The analysis, report and sheet code loads while the workers fly.
+    const files = shard ? null : import('./study-files.js');
+    files?.catch(() => {});
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p) });
     bar.end();
+    timer.lap('flights (workers; main thread waits)');
     if (shard) {
       const manifest = writeShardFolder(out, run, { scenario, scenarioHash: loaded.hash, seed, samples, warnings: loaded.warnings, shard });
       await honourInterrupt(interrupt.signal);
@@ -86,9 +115,11 @@ export async function runCommand(args: string[]): Promise<number> {
       }
       return 0;
     }
-    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings);
+    const { writeStudyFiles } = await files!;
+    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, timer);
     await honourInterrupt(interrupt.signal);
     out.commit();
+    timer.lap('commit');
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
     return 0;

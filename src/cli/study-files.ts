@@ -4,23 +4,22 @@ import type { RunSummary } from '../report/run-summary.js';
 import { studyOutcome } from '../report/study.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import type { OutputFolder } from './output-folder.js';
+import { PhaseTimer } from './phase-timer.js';
 
 /**
  * From every sample of a study to the files of its results folder. `strewn run` and
  * `strewn merge` both end here, which is what makes a merged study byte-identical to one run.
  */
-export function writeStudyFiles(out: OutputFolder, scenario: Scenario, hash: string, run: RunResult, warnings: Issue[]): RunSummary {
+export function writeStudyFiles(out: OutputFolder, scenario: Scenario, hash: string, run: RunResult, warnings: Issue[], timer = new PhaseTimer()): RunSummary {
   const { set, analysis, summary } = studyOutcome(scenario, hash, run, warnings);
-  for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
+  timer.lap('analysis, sensitivity and summary');
+  const files = buildResultFiles(scenario, set, analysis, summary);
+  timer.lap('small result files and the sheet');
+  for (const [name, content] of files) {
+    out.write(name, content);
+    timer.lap(`write ${name}`);
+  }
   return summary;
 }
 
-/**
- * The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
- * event loop: two turns (one is not enough) let it reach its handler; honour it before the
- * results appear.
- */
-export async function honourInterrupt(signal: AbortSignal): Promise<void> {
-  for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
-  signal.throwIfAborted();
-}
+export { honourInterrupt } from './study-files-light.js';
