@@ -3,14 +3,16 @@ import type { FeatureCollection } from 'geojson';
 import { createLocalFrame } from '../../../src/analysis/geodesy.js';
 import type { AcceptedScenario } from '../scenario/validate.js';
 import type { Study } from '../study/compose.js';
-import { percent } from '../units/format.js';
+import { percent as sheetPercent } from '../../../src/report/sheet/units.js';
+import { WORDS } from '../../../src/report/symbols.js';
+import { inUnit } from '../units/format.js';
 import { figureUnits, type UnitSystem } from '../units/systems.js';
 import { attachLandingHover } from './hover.js';
-import { hatchImage } from './hatch.js';
+import { MARKER_PIXEL_RATIO, markerImage, markerImageId } from './markers.js';
 import { LegendControl } from './legend.js';
 import { PadMarker } from './pad-marker.js';
-import { KEEP_OUT } from './palette.js';
-import { KEEP_OUT_HATCH, SOURCES, layersOf, type LayerGroup, type SourceId } from './style.js';
+import { KEEP_OUT_FILL, MODE_STYLE_COUNT } from './palette.js';
+import { SOURCES, layersOf, type LayerGroup, type SourceId } from './style.js';
 import { USER_BASEMAP_SOURCE, applyBackground, type Background } from './tiles.js';
 import { WindArrowControl } from './wind-arrow.js';
 import {
@@ -47,6 +49,8 @@ export class MapView {
   private readonly pad: PadMarker;
   private scene: MapScene | null = null;
   private basemapFailed = false;
+  private faded = false;
+  private landingOpacity: unknown = null;
   /** Told when the optional basemap fails to load. */
   onBasemapError: (message: string) => void = () => {};
   private readonly styleReady: Promise<void>;
@@ -68,7 +72,7 @@ export class MapView {
       if (map.isStyleLoaded()) resolve();
       else map.once('load', () => resolve());
     }).then(() => {
-      map.addImage(KEEP_OUT_HATCH, hatchImage(KEEP_OUT.hatch));
+      for (let m = 0; m < MODE_STYLE_COUNT; m++) map.addImage(markerImageId(m), markerImage(m), { pixelRatio: MARKER_PIXEL_RATIO });
     });
     // A basemap the user asked for may fail to load (no network, a wrong URL, a damaged file):
     // that is said once in the Map tab, not left as a stream of console errors.
@@ -124,8 +128,9 @@ export class MapView {
     }
 
     const study = scene.study;
-    const figures = scene.current && study?.analysis ? study.analysis.areas.map((a) => ({ hits: a.hits, probability: a.probability })) : [];
-    const areas = areaFeatures(site, figures, (f) => (f.hits === 0 ? 'no landing' : percent(f.probability)));
+    const figures = scene.current && study?.analysis ? study.analysis.areas.map((a) => ({ hits: a.hits, probability: a.probability, upper95: a.upper95 })) : [];
+    // The sheet's words and number formatting, so a label reads the same on paper and on screen.
+    const areas = areaFeatures(site, figures, (f) => WORDS.areaChance(f.hits, sheetPercent(f.probability), sheetPercent(f.upper95)));
     this.setData(SOURCES.areas, areas.shapes);
     this.setData(SOURCES.areaLabels, areas.labels);
 
@@ -145,18 +150,22 @@ export class MapView {
     }
     // Results from an earlier version of the scenario stay visible, but faded.
     const faded = study !== null && !scene.current;
-    this.map.setPaintProperty('landings', 'circle-opacity', faded ? 0.3 : 0.85);
-    this.map.setPaintProperty('contour-fill', 'fill-opacity', faded ? 0.04 : 0.1);
-    this.map.setPaintProperty('keepout-fill', 'fill-opacity', faded ? 0.2 : 0.55);
+    if (faded !== this.faded) {
+      this.faded = faded;
+      if (faded) this.landingOpacity = this.map.getPaintProperty('landings', 'icon-opacity');
+      this.map.setPaintProperty('landings', 'icon-opacity', faded ? 0.3 : (this.landingOpacity as number));
+      this.map.setPaintProperty('keepout-fill', 'fill-opacity', (KEEP_OUT_FILL.opacity ?? 1) * (faded ? 0.4 : 1));
+    }
 
     this.drawRings(site.pad.lon, site.pad.lat);
+    const k = study?.analysis?.keepOut.properties;
     this.legend.show({
       modes: study?.set.modeNames ?? [],
       levels: study?.analysis?.levels ?? [],
-      keepOut: study?.analysis ? { level: study.analysis.keepOut.properties.level } : null,
-      hasAreas: site.areas.length > 0,
-      areaFigures: figures.length > 0,
+      keepOut: k ? { level: k.level, parts: k.parts, margin: k.margin_m > 0 ? inUnit(k.margin_m, units.length) : null } : null,
+      areaKinds: [...new Set(site.areas.map((a) => a.kind as string))],
       hasTrack: nominal.track.length > 1,
+      hasBoundary: site.boundary !== undefined,
     });
 
     if (options.fit === 'site') this.fitSite();
