@@ -16,7 +16,7 @@ import { basemapShapes, lineLabelCandidates, mainRing, pointsAlong, polygonsInMe
 import { northArrow, scaleBar, windIndicator } from './map-furniture.js';
 import { boundsOfPoints, chooseExtent, fitView, intersection, isEmpty, overlaps, union, type Bounds, type MapView } from './map-view.js';
 import { lengthLabel, roundLengthAtMost } from './nice-length.js';
-import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, type SheetOptions } from './page-parts.js';
+import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, warningsBox, type SheetOptions } from './page-parts.js';
 import { AREA_STYLES, areaStyle, BASEMAP_LABEL, BASEMAP_LABEL_BACKING, BOUNDARY_STROKE, contourLabelColor, contourStyle, INK, INK_SOFT, KEEP_OUT_FILL, KEEP_OUT_STROKE, MINIMUM_DISTANCE_STROKE, modeMarker, RING_STROKE } from './palette.js';
 import type { SheetInput } from './sheet-input.js';
 import { WORDS } from '../symbols.js';
@@ -78,7 +78,9 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   const legendColumns = 3;
   const noteSize = 8;
   const caution = cautionHeight(contentWidth, measure);
-  const frameTop = title.bottom + 6;
+  // Warnings first, where the eye lands: above the map, not only on page 2.
+  const warnings = warningsBox([...summary.warnings, ...summary.scenarioWarnings], MARGIN, title.bottom + 4, contentWidth, measure);
+  const frameTop = title.bottom + 6 + (warnings.height > 0 ? warnings.height + 4 : 0);
   const offMapAtMost = areas.filter((a) => !overlaps(a.bounds, extent));
   const noteReserve = areas.length > 0 || landings !== null ? wrapText(measure, toWinAnsi(offMapNote(offMapAtMost.map((a) => a.area.name), landings ? landings.east.length : 0, areas.length > 0, areas.length > 1)), noteSize, 'italic', contentWidth).length * noteSize * 1.25 + 2 : 0;
   /** The frame takes the height the legend and the caution leave. */
@@ -264,7 +266,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   }
 
   // ---- below the map: legend, note, caution
-  const shapes: Shape[] = [...title.shapes];
+  const shapes: Shape[] = [...title.shapes, ...warnings.shapes];
   shapes.push({ kind: 'clip', id: 'map', className: 'map', x: view.frame.x, y: view.frame.y, width: view.frame.width, height: view.frame.height, shapes: [...inside, ...placer.shapes()] });
   shapes.push(...north.shapes, ...wind.shapes, ...scale.shapes);
   shapes.push({ kind: 'rect', id: 'map-frame', x: view.frame.x, y: view.frame.y, width: view.frame.width, height: view.frame.height, stroke: { color: INK, width: 0.9 } });

@@ -49,6 +49,12 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
   const out: HTMLElement[] = [];
   if (!current) out.push(el('p', { class: 'stale', attrs: { role: 'status' }, data: { test: 'stale' }, text: 'These results are from the scenario as it was before your last change. Run again to update them.' }));
 
+  // Warnings first: above every figure, where they are read before the figures they qualify.
+  const warnings = [...s.warnings, ...s.scenarioWarnings];
+  if (warnings.length > 0) {
+    out.push(el('div', { class: 'warnings', attrs: { role: 'note' }, data: { finding: 'warnings' } }, el('p', { class: 'warnings-title', text: `Warnings (${warnings.length})` }), el('ul', {}, ...warnings.map((w) => el('li', { text: w })))));
+  }
+
   const rate = s.samples / Math.max(1e-3, study.flightTime_ms / 1000);
   out.push(
     el('p', { class: 'findings-head' }, el('strong', { text: s.name })),
@@ -113,10 +119,6 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
         el('details', {}, el('summary', { text: 'As a table' }), data),
       ),
     );
-  }
-  const warnings = [...s.warnings, ...s.scenarioWarnings];
-  if (warnings.length > 0) {
-    out.push(el('div', { class: 'warnings', data: { finding: 'warnings' } }, el('p', { class: 'warnings-title', text: 'Warnings' }), el('ul', {}, ...warnings.map((w) => el('li', { text: w })))));
   }
   return out;
 }
