@@ -145,7 +145,9 @@ export function offlineStyle(): StyleSpecification {
       id: 'contour-label',
       type: 'symbol',
       source: SOURCES.contourLabels,
-      layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': true }),
+      // Thinned on a small cloud: labels that would collide are left out (the legend names every
+      // line style), the outermost region's first, as it bounds the zone.
+      layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': false, 'text-padding': 4, 'symbol-sort-key': ['-', 100, ['get', 'index']] }),
       paint: { 'text-color': byLevelIndex((i) => contourLabelSymbolColor(i)), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
     },
     { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },

@@ -29,6 +29,24 @@ import {
   trackFeatures,
 } from './features.js';
 
+type Corner = 'top-left' | 'top-right' | 'bottom-left' | 'bottom-right';
+const CORNERS: readonly Corner[] = ['bottom-right', 'bottom-left', 'top-right', 'top-left'];
+/** A map narrower than this starts with the legend folded away: open, it would cover half of it. */
+const NARROW_MAP_PX = 640;
+
+interface Rect {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+function overlap(a: Rect, b: Rect): number {
+  const w = Math.min(a.x + a.w, b.x + b.w) - Math.max(a.x, b.x);
+  const h = Math.min(a.y + a.h, b.y + b.h) - Math.max(a.y, b.y);
+  return w > 0 && h > 0 ? w * h : 0;
+}
+
 /** What the map shows: the accepted scenario, and the study when there is one. */
 export interface MapScene {
   accepted: AcceptedScenario;
@@ -62,6 +80,9 @@ export class MapView {
   ) {
     map.addControl(this.wind, 'top-right');
     map.addControl(this.legend, 'bottom-right');
+    // Opened or folded by the reader: its size changed, so it may fit better in another corner.
+    this.legend.element.addEventListener('toggle', () => this.placeLegend());
+    map.on('resize', () => this.placeLegend());
     this.pad = new PadMarker(map, { onDrag: (lon, lat) => this.drawRings(lon, lat), onMoved: onPadMoved });
     // Ring spacing follows the zoom, so a few rings are always in view.
     map.on('moveend', () => {
@@ -170,7 +191,72 @@ export class MapView {
 
     if (options.fit === 'site') this.fitSite();
     else if (options.fit === 'results') this.fitResults();
+    this.placeLegend();
   }
+
+  /** Where the legend sits now. */
+  legendCorner: Corner = 'bottom-right';
+
+  /**
+   * Puts the legend in the map corner where it covers least of what was found: the keep-out zone,
+   * its label, the marked areas' labels and the pad. On a narrow map it starts folded away
+   * (the reader opens it); once the reader opens or folds it, the page leaves that choice alone.
+   */
+  placeLegend(): void {
+    const box = this.legend.element;
+    const container = this.map.getContainer();
+    const width = container.clientWidth;
+    const height = container.clientHeight;
+    if (!this.legendFoldDecided) {
+      this.legendFoldDecided = true;
+      if (width < NARROW_MAP_PX) box.open = false;
+    }
+    const keep: Rect[] = [];
+    const rectAround = (lon: number, lat: number, w: number, h: number): Rect => {
+      const p = this.map.project([lon, lat]);
+      return { x: p.x - w / 2, y: p.y - h / 2, w, h };
+    };
+    const zone = boundsOf(this.sourceData(SOURCES.keepOut));
+    if (zone) {
+      const a = this.map.project([zone[0], zone[3]]);
+      const b = this.map.project([zone[2], zone[1]]);
+      keep.push({ x: a.x, y: a.y, w: b.x - a.x, h: b.y - a.y });
+    }
+    // Labels count more than area: a hidden label hides a figure.
+    for (const f of this.sourceData(SOURCES.keepOutLabel).features) if (f.geometry.type === 'Point') keep.push(rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 160, 60), rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 160, 60));
+    for (const f of this.sourceData(SOURCES.areaLabels).features) if (f.geometry.type === 'Point') keep.push(rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 140, 40));
+    const pad = this.scene?.accepted.scenario.site.pad;
+    if (pad) keep.push(rectAround(pad.lon, pad.lat, 40, 40));
+    const w = box.offsetWidth;
+    const h = box.offsetHeight;
+    const costOf = (corner: Corner): number => {
+      const holder = container.querySelector<HTMLElement>(`.maplibregl-ctrl-${corner}`);
+      const others = holder ? [...holder.children].filter((c) => c !== box).reduce((sum, c) => sum + (c as HTMLElement).offsetHeight + 10, 0) : 0;
+      const x = corner.endsWith('left') ? 10 : width - w - 10;
+      const y = corner.startsWith('top') ? others + 10 : height - others - h - 10;
+      const r = { x, y, w, h };
+      return keep.reduce((sum, k) => sum + overlap(r, k), 0);
+    };
+    let best = this.legendCorner;
+    let bestCost = costOf(best);
+    for (const corner of CORNERS) {
+      const cost = costOf(corner);
+      if (cost < bestCost - 1) {
+        best = corner;
+        bestCost = cost;
+      }
+    }
+    if (best !== this.legendCorner) {
+      this.legendCorner = best;
+      const holder = container.querySelector<HTMLElement>(`.maplibregl-ctrl-${best}`);
+      if (holder) {
+        if (best.startsWith('bottom')) holder.prepend(box);
+        else holder.append(box);
+      }
+    }
+    box.dataset.corner = best;
+  }
+  private legendFoldDecided = false;
 
   /** Rings around a pad position (also while the marker is being dragged). */
   private drawRings(lon: number, lat: number): void {

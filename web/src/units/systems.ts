@@ -57,3 +57,8 @@ export interface FigureUnits {
 export function figureUnits(system: UnitSystem): FigureUnits {
   return { length: fieldUnit('length', system), speed: fieldUnit('speed', system) };
 }
+
+/** The paper a unit system's users print on unless they choose: A4 (ISO 216) with metric, US Letter with imperial. */
+export function paperFor(system: UnitSystem): 'a4' | 'letter' {
+  return system === 'imperial' ? 'letter' : 'a4';
+}
