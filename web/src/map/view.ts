@@ -82,6 +82,8 @@ export class MapView {
     map.addControl(this.legend, 'bottom-right');
     // Opened or folded by the reader: its size changed, so it may fit better in another corner.
     this.legend.element.addEventListener('toggle', () => this.placeLegend());
+    // The reader's own opening or folding (a click or a key on the summary) decides from then on.
+    this.legend.element.querySelector('summary')?.addEventListener('click', () => (this.legendFoldDecided = true));
     map.on('resize', () => this.placeLegend());
     this.pad = new PadMarker(map, { onDrag: (lon, lat) => this.drawRings(lon, lat), onMoved: onPadMoved });
     // Ring spacing follows the zoom, so a few rings are always in view.
@@ -129,6 +131,7 @@ export class MapView {
 
   async show(scene: MapScene, options: { fit: 'site' | 'results' | 'none' }): Promise<void> {
     await this.styleReady;
+    this.decideLegendFold();
     const previous = this.scene;
     this.scene = scene;
     const { scenario, nominal } = scene.accepted;
@@ -207,10 +210,7 @@ export class MapView {
     const container = this.map.getContainer();
     const width = container.clientWidth;
     const height = container.clientHeight;
-    if (!this.legendFoldDecided) {
-      this.legendFoldDecided = true;
-      if (width < NARROW_MAP_PX) box.open = false;
-    }
+    this.decideLegendFold();
     const keep: Rect[] = [];
     const rectAround = (lon: number, lat: number, w: number, h: number): Rect => {
       const p = this.map.project([lon, lat]);
@@ -258,6 +258,16 @@ export class MapView {
   }
   private legendFoldDecided = false;
 
+  /**
+   * On a narrow map the legend is folded away, on a wide one open, until the reader opens or folds
+   * it: from then on that choice stands.
+   */
+  private decideLegendFold(): void {
+    if (this.legendFoldDecided) return;
+    const open = this.map.getContainer().clientWidth >= NARROW_MAP_PX;
+    if (this.legend.element.open !== open) this.legend.element.open = open;
+  }
+
   /** Rings around a pad position (also while the marker is being dragged). */
   private drawRings(lon: number, lat: number): void {
     const scene = this.scene;
@@ -296,7 +306,13 @@ export class MapView {
   private fitTo(bounds: [number, number, number, number] | null): void {
     if (!bounds) return;
     const legend = this.legend.width();
-    this.map.fitBounds(bounds, { padding: { top: 50, bottom: 40, left: 50, right: Math.max(50, legend + 30) }, duration: 0, maxZoom: 17.5 });
+    // Never more padding than a third of the map, or fitBounds gives up and zooms far out.
+    const width = this.map.getContainer().clientWidth;
+    const height = this.map.getContainer().clientHeight;
+    const side = Math.min(50, width / 8);
+    const right = Math.min(Math.max(side, legend + 30), width / 3);
+    const vertical = Math.min(50, height / 8);
+    this.map.fitBounds(bounds, { padding: { top: vertical, bottom: vertical, left: side, right }, duration: 0, maxZoom: 17.5 });
   }
 
   setLayerVisible(group: LayerGroup, visible: boolean): void {

@@ -78,12 +78,20 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
   if (study.analysis) {
     const octants = study.analysis.keepOut.properties.octants_m;
     const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
-    const reach = table('Keep-out zone: farthest point by direction from the pad', 'octants', ['', ...names], [['reach', ...names.map((n) => (octants[n] === null ? '–' : inUnit(octants[n]!, u.length)))]]);
-    reach.classList.add('octants');
-    out.push(reach);
+    // Two rows of four directions, numbers only (the unit is in the caption): fits a phone's width
+    // in feet as in metres, with no unit wrapped under its number.
+    const cell = (n: (typeof names)[number]) => el('td', {}, el('span', { class: 'octant-name', text: n }), octants[n] === null ? '–' : grouped(octants[n]! / u.length.si));
+    out.push(
+      el(
+        'table',
+        { class: 'octants', data: { finding: 'octants' } },
+        el('caption', { text: `Keep-out zone: farthest point by direction from the pad (${u.length.label})` }),
+        el('tbody', {}, el('tr', {}, ...names.slice(0, 4).map(cell)), el('tr', {}, ...names.slice(4).map(cell))),
+      ),
+    );
   }
   if (s.contours.length > 0) {
-    out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'Samples in band'], s.contours.map((c) => [level(c.level), area(c.area_m2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
+    out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'In band'], s.contours.map((c) => [level(c.level), area(c.area_m2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
   }
   if (s.modes.length > 1) {
     out.push(table('Modes', 'modes', ['Mode', 'Probability', 'Samples', 'Landed'], s.modes.map((m) => [m.name, percent(m.probability), grouped(m.samples), grouped(m.landed)])));
@@ -94,8 +102,8 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
       table(
         'Marked areas: chance per flight of a landing inside',
         'areas',
-        ['Area', 'Hits', 'Probability', '95 % upper bound', 'Keep-out zone'],
-        s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'overlaps' : '–']),
+        ['Area', 'Hits', 'Chance', '95 % bound', 'Overlaps zone'],
+        s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'yes' : 'no']),
       ),
     );
   }
