@@ -29,6 +29,10 @@ if (clubRocket) {
 }
 
 console.log('');
+console.log('Rigid-body club rocket (target >= 5,000 flights/s per core, turbulence on):');
+await import('./rigid.js');
+
+console.log('');
 if (process.env.BENCH_SKIP_POOL !== '1') await poolBench(root);
 console.log('');
 scaleBench(root);
