@@ -12,7 +12,7 @@ import { CLI, ROOT, strewn, tempDir } from './helpers.js';
  * or planned modes from its own size would change landings.csv.
  */
 const SCENARIO = join(ROOT, 'scenarios/club-rocket.json');
-const SAMPLES = '600';
+const SAMPLES = '400';
 const ENV = { SOURCE_DATE_EPOCH: '1700000000' };
 
 function files(dir: string): Record<string, Buffer> {
@@ -58,26 +58,26 @@ describe('strewn run --shard and strewn merge', () => {
     expect(Object.keys(expected)).toContain('landings.csv');
     expect(files(inOrder)).toEqual(expected);
     expect(files(reversed)).toEqual(expected);
-  }, 60_000);
+  }, 120_000);
 
   it('Slurm array task ids pick the shard too; merged with shards of another split it still equals one run', async () => {
     const slurm = join(dir, 'slurm');
     expect(await runShardsAtOnce(3, slurm, 'SLURM_ARRAY_TASK_ID')).toEqual([0, 0, 0]);
     const manifest = JSON.parse(readFileSync(join(slurm, 'shard-1-of-3/shard.json'), 'utf8'));
-    // floor(600·k/3): samples 200–399.
-    expect([manifest.first, manifest.count]).toEqual([200, 200]);
+    // floor(400·k/3): samples 133–265.
+    expect([manifest.first, manifest.count]).toEqual([133, 133]);
     const out = join(dir, 'merged-slurm');
     expect(strewn(['merge', slurm, '--out', out, '--quiet'], { env: ENV }).status).toBe(0);
     expect(readFileSync(join(out, 'landings.csv'))).toEqual(readFileSync(join(single, 'landings.csv')));
     expect(readFileSync(join(out, 'summary.json'))).toEqual(readFileSync(join(single, 'summary.json')));
-  }, 60_000);
+  }, 120_000);
 
   it('a missing, repeated or foreign shard exits 2 naming it, and writes nothing', () => {
     const s = (k: number) => join(shards, `shard-${k}-of-4`);
     const out = join(dir, 'bad');
     const missing = strewn(['merge', s(0), s(1), s(3), '--out', out]);
     expect(missing.status).toBe(2);
-    expect(missing.stderr).toMatch(/samples 300–449 of 600 are missing/);
+    expect(missing.stderr).toMatch(/samples 200–299 of 400 are missing/);
 
     const repeated = strewn(['merge', s(0), s(1), s(1), s(2), s(3), '--out', out]);
     expect(repeated.status).toBe(2);
@@ -106,7 +106,7 @@ describe('strewn run --shard and strewn merge', () => {
 
     for (const r of [missing, repeated, overlapping, other, broken]) expect(r.stderr).not.toMatch(/\n\s+at /);
     expect(readdirSync(dir)).not.toContain('bad');
-  }, 60_000);
+  }, 120_000);
 
   it('a shard number outside 0…N−1, or none in the environment, is refused with exit 2', () => {
     const bad = strewn(['run', SCENARIO, '--samples', '100', '--shard', '4/4', '--out', join(dir, 'x')]);
