@@ -2,7 +2,7 @@ import type { Scenario, Spread, UncertaintyName } from '../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../scenario/types.js';
 import type { FlightInputs } from '../flight/inputs.js';
 import { sigmaWFromGust, sigmaWFromW20 } from '../physics/dryden.js';
-import type { MeanWind } from '../physics/wind.js';
+import { referenceSpeed, type MeanWind } from '../physics/wind.js';
 import { RHO_SEA_LEVEL, G0 } from '../physics/constants.js';
 import { spreadOffset } from './spreads.js';
 import type { SampleStream } from './random.js';
@@ -40,7 +40,9 @@ export class InputDrawer {
 
   /**
    * Draws one sample's inputs. Every parameter consumes exactly one uniform, in the fixed order of
-   * UNCERTAINTY_NAMES, whether or not it has a spread; turbulence draws come after.
+   * UNCERTAINTY_NAMES, whether or not it has a spread; then, always consumed and in this order, the
+   * direction of a thrust misalignment around the body axis and the launch lean across the plane
+   * of the nominal lean; turbulence draws come after.
    */
   draw(stream: SampleStream, mode: number, wind: MeanWind, inputs: FlightInputs): void {
     const sc = this.scenario;
@@ -50,14 +52,21 @@ export class InputDrawer {
       const spread = this.spreads[i];
       v[i] = spread === undefined ? this.nominal[i] : this.nominal[i] + spreadOffset(spread, this.nominal[i], uniformScratch[i]);
     }
+    const misalignmentDirection = stream.uniform();
+    const acrossUniform = stream.uniform();
     const launch = sc.launch;
     inputs.windSpeed = Math.max(0, v[0]);
     inputs.windTurn = v[1] - sc.weather.wind.from;
-    inputs.tilt = clamp(v[3], 0, 90);
+    inputs.misalignmentDirection = 360 * misalignmentDirection;
+    // The lean is never clamped: a draw past the vertical leans the other way (the flight turns
+    // the two angles into a direction), so a vertical launch scatters round about the pad.
+    inputs.tilt = v[3];
     inputs.azimuth = v[4];
     inputs.heading = v[4];
     inputs.speed = Math.max(0, v[5]);
-    inputs.elevation = clamp(v[6], -90, 90);
+    inputs.elevation = v[6];
+    const lean = this.spreads[launch.kind === 'rocket' ? 3 : 6];
+    inputs.leanAcross = lean !== undefined && launch.kind !== 'release' ? spreadOffset(lean, 0, acrossUniform) : 0;
     inputs.height = Math.max(0, v[7]);
     inputs.east = launch.kind === 'release' ? launch.east : 0;
     inputs.north = launch.kind === 'release' ? launch.north : 0;
@@ -106,21 +115,17 @@ export function readSpreadUniforms(stream: SampleStream, out: Float64Array): voi
   for (let i = 0; i < UNCERTAINTY_NAMES.length; i++) out[i] = stream.uniform();
 }
 
-function clamp(x: number, lo: number, hi: number): number {
-  return x < lo ? lo : x > hi ? hi : x;
-}
-
 /** The nominal value of a spread parameter in the scenario (0 where it does not apply). */
 export function nominalValue(sc: Scenario, name: UncertaintyName): number {
   const l = sc.launch;
   const w = sc.weather.wind;
   switch (name) {
     case 'wind.speed':
-      return w.speed;
+      return referenceSpeed(w);
     case 'wind.from':
       return w.from;
     case 'wind.gust':
-      return w.gust ?? w.speed;
+      return w.gust ?? referenceSpeed(w);
     case 'launch.tilt':
       return l.kind === 'rocket' ? l.tilt : 0;
     case 'launch.azimuth':

@@ -1,6 +1,6 @@
 import type { Scenario } from '../scenario/types.js';
-import { G0 } from '../physics/constants.js';
 import { AirModel, type Air } from '../physics/air.js';
+import { EarthModel, addCoriolis, type Earth } from '../physics/earth.js';
 import { MeanWind } from '../physics/wind.js';
 import { GustField } from '../physics/gust-field.js';
 import { DragCurve, addDragAcceleration } from '../physics/drag.js';
@@ -10,8 +10,7 @@ import type { FlightInputs } from './inputs.js';
 import { FlightStatus } from './status.js';
 import { RecoverySchedule } from './recovery-schedule.js';
 import { locateCrossing } from './locate-crossing.js';
-
-const DEG = Math.PI / 180;
+import { launchDirection } from './launch-direction.js';
 
 /** Integration settings. Defaults keep landing points within a metre of a tight reference. */
 export interface FlightOptions {
@@ -25,6 +24,8 @@ export interface FlightOptions {
   minStep: number;
   /** Replaces the scenario's atmosphere (tests against constant-density closed forms). */
   air?: Air;
+  /** Replaces the rotating WGS 84 Earth at the pad (tests against uniform-gravity closed forms). */
+  earth?: Earth;
 }
 
 export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
@@ -76,6 +77,7 @@ const EV_STAGE = 3; // + stage index
  */
 export class FlightModel implements OdeSystem {
   readonly air: Air;
+  readonly earth: Earth;
   readonly wind: MeanWind;
   readonly gusts: GustField;
   private readonly scenario: Scenario;
@@ -106,12 +108,14 @@ export class FlightModel implements OdeSystem {
   private readonly w = new Float64Array(3);
   private readonly acc = new Float64Array(3);
   private readonly probe = new Float64Array(6);
+  private readonly direction = new Float64Array(3);
 
   constructor(scenario: Scenario, options: Partial<FlightOptions> = {}) {
     this.scenario = scenario;
     this.options = { ...DEFAULT_FLIGHT_OPTIONS, ...options };
     const weather = scenario.weather;
     this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure);
+    this.earth = this.options.earth ?? new EarthModel(scenario.site.pad.lat, scenario.site.pad.elevation);
     this.wind = new MeanWind(weather.wind);
     this.gusts = new GustField();
     this.dragCurve = new DragCurve(scenario.vehicle.drag);
@@ -159,7 +163,9 @@ export class FlightModel implements OdeSystem {
     const acc = this.acc;
     acc[0] = 0;
     acc[1] = 0;
-    acc[2] = -G0;
+    acc[2] = -this.earth.gravityAt(z);
+    // The frame turns with the Earth: Coriolis acts on the velocity over the ground.
+    addCoriolis(this.earth, y[3], y[4], y[5], acc);
     addDragAcceleration((rho * cda) / (2 * mass), vx, vy, vz, acc, 0);
     let ax = acc[0];
     let ay = acc[1];
@@ -225,33 +231,32 @@ export class FlightModel implements OdeSystem {
     let burning = this.motor !== null;
     const burnTime = this.motor !== null ? this.motor.burnTime : 0;
     const kind = sc.vehicle.kind;
+    const dir = this.direction;
     if (kind === 'rocket') {
-      const tilt = inputs.tilt * DEG;
-      const az = inputs.azimuth * DEG;
-      this.railX = Math.sin(tilt) * Math.sin(az);
-      this.railY = Math.sin(tilt) * Math.cos(az);
-      this.railZ = Math.cos(tilt);
+      launchDirection(inputs.tilt, inputs.azimuth, inputs.leanAcross, true, dir);
+      this.railX = dir[0];
+      this.railY = dir[1];
+      this.railZ = dir[2];
       this.railLength = sc.launch.kind === 'rocket' ? sc.launch.rail : 0;
       this.onRail = this.railLength > 0;
       y0.fill(0);
     } else if (kind === 'projectile') {
       this.onRail = false;
-      const el = inputs.elevation * DEG;
-      const az = inputs.azimuth * DEG;
+      launchDirection(inputs.elevation, inputs.azimuth, inputs.leanAcross, false, dir);
       y0[0] = 0;
       y0[1] = 0;
       y0[2] = inputs.height;
-      y0[3] = inputs.speed * Math.cos(el) * Math.sin(az);
-      y0[4] = inputs.speed * Math.cos(el) * Math.cos(az);
-      y0[5] = inputs.speed * Math.sin(el);
+      y0[3] = inputs.speed * dir[0];
+      y0[4] = inputs.speed * dir[1];
+      y0[5] = inputs.speed * dir[2];
     } else {
       this.onRail = false;
-      const hd = inputs.heading * DEG;
+      launchDirection(0, inputs.heading, 0, false, dir);
       y0[0] = inputs.east;
       y0[1] = inputs.north;
       y0[2] = inputs.height;
-      y0[3] = inputs.speed * Math.sin(hd);
-      y0[4] = inputs.speed * Math.cos(hd);
+      y0[3] = inputs.speed * dir[0];
+      y0[4] = inputs.speed * dir[1];
       y0[5] = 0;
     }
     solver.reset(y0);
@@ -327,7 +332,9 @@ export class FlightModel implements OdeSystem {
           event = EV_APOGEE;
           tEvent = t;
         }
-        if (y[2] <= 0 && yPrevZ > 0) {
+        // Ground contact from the very first step: a flight that starts on the ground and moves
+        // down lands where it first goes below it (at once), rather than flying underground.
+        if ((y[2] <= 0 && yPrevZ > 0) || (y[2] < 0 && yPrevZ === 0)) {
           const te = this.locate(EV_GROUND, 0, t, tNew, yPrevZ, y[2]);
           if (te < tEvent || (te === tEvent && event !== EV_APOGEE)) { event = EV_GROUND; tEvent = te; }
         }

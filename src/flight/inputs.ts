@@ -9,9 +9,16 @@ export interface FlightInputs {
   windTurn: number;
   /** Dryden σ_w for this sample, m/s (0: no turbulence). */
   sigmaW: number;
-  /** Rocket rail tilt from vertical and its azimuth, deg. */
+  /**
+   * Rocket rail tilt from vertical and its azimuth, deg. The tilt may be negative or pass 90°
+   * after a spread: the rail then leans the other way (see launch-direction.ts).
+   */
   tilt: number;
   azimuth: number;
+  /** Lean across the vertical plane of the nominal lean (rocket rail or projectile elevation), deg. */
+  leanAcross: number;
+  /** Direction of a thrust misalignment around the body axis, deg (rigid-body rockets). */
+  misalignmentDirection: number;
   /** Projectile: speed (m/s), elevation (deg), azimuth (deg), height (m). Release: speed, heading, height. */
   speed: number;
   elevation: number;
@@ -36,7 +43,7 @@ export interface FlightInputs {
 export function emptyInputs(stageCount: number): FlightInputs {
   return {
     windSpeed: 0, windTurn: 0, sigmaW: 0,
-    tilt: 0, azimuth: 0,
+    tilt: 0, azimuth: 0, leanAcross: 0, misalignmentDirection: 0,
     speed: 0, elevation: 0, heading: 0, height: 0, east: 0, north: 0,
     impulseScale: 1, mass: 1, cdScale: 1, delayOffset: 0, rateFactor: 1,
     skipStage: new Uint8Array(stageCount),

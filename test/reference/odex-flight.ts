@@ -14,8 +14,8 @@ import { MeanWind } from '../../src/physics/wind.js';
 import { GustField } from '../../src/physics/gust-field.js';
 import { DragCurve } from '../../src/physics/drag.js';
 import { MotorModel } from '../../src/physics/motor.js';
+import { normalGravityAt, WGS84, type Earth } from '../../src/physics/earth.js';
 
-const G0 = 9.80665; // standard gravity (U.S. Standard Atmosphere, 1976)
 const D = Math.PI / 180;
 
 export interface ReferenceOptions {
@@ -24,6 +24,8 @@ export interface ReferenceOptions {
   sigmaW?: number;
   normal?: () => number;
   air?: Air;
+  /** Replaces the rotating WGS 84 Earth (the same override the engine takes). */
+  earth?: Earth;
 }
 
 export interface ReferenceLanding {
@@ -43,6 +45,14 @@ export function odexFlight(sc: Scenario, options: ReferenceOptions): ReferenceLa
   const motor = sc.vehicle.motor && sc.vehicle.kind === 'rocket' ? new MotorModel(sc.vehicle.motor) : null;
   const stages = sc.vehicle.kind === 'projectile' ? [] : sc.recovery;
   const w = new Float64Array(3);
+  // Gravity straight down with WGS 84 normal gravity at the pad's latitude and the height above
+  // sea level (NIMA TR8350.2 eq. 4-1, 4-3, evaluated afresh at every height), and the Earth's
+  // rotation vector in the local east-north-up frame.
+  const pad = sc.site.pad;
+  const gravity = options.earth ? (z: number) => options.earth!.gravityAt(z) : (z: number) => normalGravityAt(pad.lat, pad.elevation + z);
+  const omega = options.earth
+    ? [0, options.earth.omegaNorth, options.earth.omegaUp]
+    : [0, WGS84.omega * Math.cos(pad.lat * D), WGS84.omega * Math.sin(pad.lat * D)];
 
   let onRail = false;
   let rail = [0, 0, 1];
@@ -61,7 +71,10 @@ export function odexFlight(sc: Scenario, options: ReferenceOptions): ReferenceLa
     const mass = sc.vehicle.mass + (motor ? motor.propellantAt(t) : 0);
     const cda = dragArea > 0 ? dragArea : drag.at(speed / air.speedOfSoundAt(y[2])) * sc.vehicle.referenceArea;
     const q = (air.densityAt(y[2]) * cda * speed) / (2 * mass);
-    const a = [-q * rel[0], -q * rel[1], -q * rel[2] - G0];
+    const v = [y[3], y[4], y[5]];
+    // −2 Ω × v
+    const cross = [omega[1] * v[2] - omega[2] * v[1], omega[2] * v[0] - omega[0] * v[2], omega[0] * v[1] - omega[1] * v[0]];
+    const a = [-q * rel[0] - 2 * cross[0], -q * rel[1] - 2 * cross[1], -q * rel[2] - gravity(y[2]) - 2 * cross[2]];
     const thrust = motor ? motor.thrustAt(t) : 0;
     if (thrust > 0) {
       const dir = onRail ? rail : rel.map((v) => v / speed);
