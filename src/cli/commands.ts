@@ -4,6 +4,7 @@ import { analyzeCommand, ANALYZE_HELP } from './analyze.js';
 import { sheetCommand, SHEET_HELP } from './sheet.js';
 import { envelopeCommand, ENVELOPE_HELP } from './envelope.js';
 import { eventCommand, EVENT_HELP } from './event.js';
+import { compareCommand, COMPARE_HELP } from './compare.js';
 
 export interface Command {
   summary: string;
@@ -17,6 +18,7 @@ export const COMMANDS: Record<string, Command> = {
   check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', help: CHECK_HELP, run: checkCommand },
   sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', help: SHEET_HELP, run: sheetCommand },
   event: { summary: 'fly every item of an event plan and add up zones, landings and casualties for the whole event', help: EVENT_HELP, run: eventCommand },
+  compare: { summary: 'compare two results folders: zone area and reach, area chances and expected casualties, both zones on one map', help: COMPARE_HELP, run: compareCommand },
   envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', help: ENVELOPE_HELP, run: envelopeCommand },
 };
 
