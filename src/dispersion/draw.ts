@@ -76,6 +76,9 @@ export class InputDrawer {
     inputs.cdScale = Math.max(0.01, v[10] / this.nominal[10]);
     inputs.delayOffset = v[11] - this.nominal[11];
     inputs.rateFactor = this.nominal[12] > 0 ? Math.max(0.05, v[12] / this.nominal[12]) : 1;
+    // A drawn misalignment below 0 is the same tilt of the thrust line turned half round.
+    inputs.misalignment = v[13];
+    inputs.cg = v[14];
 
     // Last of all the uniforms: where along the route or in the area the object is released.
     const route = this.route;
@@ -144,6 +147,10 @@ export function nominalValue(sc: Scenario, name: UncertaintyName): number {
       return sc.vehicle.drag.cd[0];
     case 'recovery.delay':
       return sc.recovery.length > 0 ? sc.recovery.reduce((s, r) => s + r.delay, 0) / sc.recovery.length : 0;
+    case 'motor.misalignment':
+      return 0;
+    case 'vehicle.cg':
+      return sc.vehicle.shape?.cg ?? 0;
     case 'recovery.rate': {
       // The sea-level descent rate of the last stage stands for all stages; every drag area is
       // scaled by (nominal / drawn)², which scales every stage's descent rate by the same factor.

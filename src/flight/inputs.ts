@@ -36,6 +36,10 @@ export interface FlightInputs {
   delayOffset: number;
   /** Multiplies every stage's descent rate (drag area divided by its square), 1 nominal. */
   rateFactor: number;
+  /** Angle between thrust line and body axis, deg (rigid-body rockets). */
+  misalignment: number;
+  /** Balance point ready to fly, m from the nose tip (rigid-body rockets; NaN: the shape's). */
+  cg: number;
   /** Per recovery stage: 1 when this sample's failure mode stops it deploying. */
   skipStage: Uint8Array;
 }
@@ -46,6 +50,7 @@ export function emptyInputs(stageCount: number): FlightInputs {
     tilt: 0, azimuth: 0, leanAcross: 0, misalignmentDirection: 0,
     speed: 0, elevation: 0, heading: 0, height: 0, east: 0, north: 0,
     impulseScale: 1, mass: 1, cdScale: 1, delayOffset: 0, rateFactor: 1,
+    misalignment: 0, cg: NaN,
     skipStage: new Uint8Array(stageCount),
   };
 }

@@ -324,6 +324,8 @@ export const SPREAD_RULES: Record<UncertaintyName, SpreadRule> = {
   'vehicle.drag': { dimension: 'number', relative: 'allowed' },
   'recovery.delay': { dimension: 'time', relative: 'allowed' },
   'recovery.rate': { dimension: 'number', relative: 'only' },
+  'motor.misalignment': { dimension: 'angle', relative: 'never', why: 'the nominal misalignment is 0, so a percentage of it is nothing' },
+  'vehicle.cg': { dimension: 'length', relative: 'allowed' },
 };
 
 const SPREAD_FIELDS = ['sd', 'limit', 'range'];
