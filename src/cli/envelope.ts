@@ -5,6 +5,8 @@ import { reusableWorkers } from '../pool/reuse.js';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { rangeValues } from '../envelope/grid.js';
 import { windEnvelope } from '../envelope/envelope.js';
+import type { Aim } from '../envelope/aim.js';
+import type { Scenario } from '../scenario/types.js';
 import { writeEnvelopeCsv, writeEnvelopeJson } from '../envelope/writers.js';
 import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
 import { envelopePdf } from '../envelope/envelope-pdf.js';
@@ -34,6 +36,10 @@ Options:
   --samples N         samples per grid point (default: the scenario's run.samples)
   --seed S            random seed (default: the scenario's run.seed)
   --workers W         worker threads (default: the number of CPU cores)
+  --aim A             how the launcher is aimed as the wind goes round: fixed (the scenario's
+                      azimuth), into-wind (toward each wind's from-direction) or
+                      away-from=AREA (away from the named area's centre); default: fixed, uncapped
+  --max-tilt DEG      largest lean from vertical with --aim (default 20, common practice)
   --exhaustive        fly every grid point instead of bisecting each direction's speeds
   --units U           metric or imperial, for the chart and the page (default metric)
   --paper P           a4 or letter, for envelope.pdf (default a4)
@@ -56,6 +62,8 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     directions: { type: 'string' },
     speeds: { type: 'string' },
     exhaustive: { type: 'boolean' },
+    aim: { type: 'string' },
+    'max-tilt': { type: 'string' },
     units: { type: 'string' },
     paper: { type: 'string' },
   });
@@ -79,6 +87,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
 
   const loaded = loadForCommand(path);
   const scenario = loaded.scenario;
+  const aim = aimOption(values.aim as string | undefined, values['max-tilt'] as string | undefined, scenario);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = (values.seed as string | undefined) ?? scenario.run.seed;
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), values.force === true);
@@ -97,6 +106,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
       samples,
       seed,
       exhaustive: values.exhaustive === true,
+      ...(aim ? { aim } : {}),
       signal: interrupt.signal,
       execute: (sc, n, s, signal) => runInPool({ scenario: sc, samples: n, seed: s }, { workers, createWorker, signal }),
       onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
@@ -120,11 +130,37 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   }
 }
 
+/** Reads --aim and --max-tilt; a name after away-from must be one of the scenario's areas. */
+function aimOption(text: string | undefined, maxTiltText: string | undefined, scenario: Scenario): Aim | undefined {
+  if (text === undefined) {
+    if (maxTiltText !== undefined) throw new UsageError('--max-tilt: goes with --aim; add --aim fixed, into-wind or away-from=AREA');
+    return undefined;
+  }
+  if (scenario.launch.kind === 'release') throw new UsageError('--aim: a released object has no launcher to aim; leave --aim out');
+  const maxTilt = maxTiltText === undefined ? 20 : Number(maxTiltText);
+  if (maxTiltText !== undefined && !(/^\s*[0-9.]+\s*$/.test(maxTiltText) && maxTilt >= 0 && maxTilt <= 90)) {
+    throw new UsageError(`--max-tilt: '${maxTiltText}'; expected degrees from vertical, 0 to 90`);
+  }
+  const match = /^\s*(fixed|into-wind|away-from)(?:\s*[= :]\s*(.+?))?\s*$/.exec(text);
+  if (match === null) throw new UsageError(`--aim: '${text}'; expected fixed, into-wind or away-from=AREA`);
+  const mode = match[1] as Aim['mode'];
+  const area = match[2];
+  if (mode !== 'away-from') {
+    if (area !== undefined) throw new UsageError(`--aim: '${text}'; only away-from takes an area name`);
+    return { mode, maxTilt };
+  }
+  const names = scenario.site.areas.map((a) => a.name);
+  if (area === undefined) throw new UsageError(`--aim: away-from needs an area, e.g. --aim "away-from=${names[0] ?? 'Spectators'}"`);
+  if (!names.includes(area)) throw new UsageError(`--aim: '${area}' is not an area of the scenario; expected one of ${names.map((n) => `'${n}'`).join(', ') || '(none)'}`);
+  return { mode, area, maxTilt };
+}
+
 function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string): string {
   const lines = [`${e.name}: wind limits (${e.samples.toLocaleString('en')} samples per point, ${e.casesFlown} points flown in ${e.elapsed_s.toFixed(1)} s)`];
   for (const d of e.limits) {
     const limit = d.limit === null ? `fails already at ${e.speeds[0]} m/s` : `${d.aboveGrid ? 'at least ' : 'up to '}${d.limit} m/s`;
-    lines.push(`  from ${String(d.from).padStart(3)}°  ${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
+    const rail = d.rail ? `rail ${String(Math.round(d.rail.azimuth)).padStart(3)}°  ` : '';
+    lines.push(`  from ${String(d.from).padStart(3)}°  ${rail}${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
   }
   lines.push(`  forecast     ${forecastVerdict(e).text}`);
   lines.push(`  results      ${folder}`, '', `CAUTION: ${CAUTION}`, '');

@@ -35,6 +35,8 @@ export class OutputFolder {
   /** Writes a file; content given in pieces is streamed so no single huge string is built. */
   write(name: string, content: string | Uint8Array | Iterable<string | Uint8Array>): void {
     const file = join(this.staging, name);
+    // Names may hold a sub-folder (an event writes each item's results under items/).
+    if (name.includes('/')) mkdirSync(dirname(file), { recursive: true });
     if (typeof content === 'string' || content instanceof Uint8Array) {
       writeFileSync(file, content);
       return;

@@ -7,6 +7,7 @@ import { RHO_SEA_LEVEL, G0 } from '../physics/constants.js';
 import { spreadOffset } from './spreads.js';
 import type { SampleStream } from './random.js';
 import type { ModePlan } from './modes.js';
+import { ReleaseRoute } from './release-route.js';
 
 /** Height of the Dryden reference wind W20, m (20 ft). */
 const W20_HEIGHT = 6.096;
@@ -21,11 +22,14 @@ export class InputDrawer {
   private readonly nominal: Float64Array;
   /** Stage index of each failure mode's stopped stage (−1: all). */
   private readonly modeStops: Int16Array[];
+  /** Release along a path or over an area: its uniforms are drawn after every other draw. */
+  private readonly route: ReleaseRoute | null;
 
   constructor(scenario: Scenario, plan: ModePlan) {
     this.scenario = scenario;
     this.spreads = UNCERTAINTY_NAMES.map((n) => scenario.uncertainty[n]);
     this.nominal = Float64Array.from(UNCERTAINTY_NAMES.map((n) => nominalValue(scenario, n)));
+    this.route = scenario.launch.kind === 'release' ? ReleaseRoute.of(scenario.launch, scenario.site) : null;
     const stageNames = scenario.recovery.map((s) => s.name);
     this.modeStops = plan.stops.map((stop) => {
       if (stop === '') return new Int16Array(0);
@@ -75,6 +79,16 @@ export class InputDrawer {
     // A drawn misalignment below 0 is the same tilt of the thrust line turned half round.
     inputs.misalignment = v[13];
     inputs.cg = v[14];
+
+    // Last of all the uniforms: where along the route or in the area the object is released.
+    const route = this.route;
+    if (route !== null) {
+      route.place(stream);
+      inputs.east = route.east;
+      inputs.north = route.north;
+      // A launch.azimuth spread turns the heading the route gives.
+      inputs.heading = route.heading + (v[4] - this.nominal[4]);
+    }
 
     // Turbulence strength: from the gust when one is given, else the Dryden light default.
     if (!sc.weather.turbulence) inputs.sigmaW = 0;

@@ -3,6 +3,7 @@ import { analyze } from '../analysis/index.js';
 import { landingSetFromRun } from '../analysis/from-run.js';
 import type { Scenario } from '../scenario/types.js';
 import { windCase } from './wind-case.js';
+import { aimedScenario, railOf, type Aim } from './aim.js';
 import { judgeZone } from './zone-tests.js';
 
 /** Flies one grid point: the CLI passes the worker pool, tests may fly in-thread. */
@@ -16,6 +17,8 @@ export interface EnvelopeOptions {
   /** Fly every grid point instead of bisecting each direction's speeds. */
   exhaustive?: boolean;
   execute: Execute;
+  /** How the launcher is aimed for each wind direction (default: fixed at the scenario's azimuth). */
+  aim?: Aim;
   /** Called after each grid point with points flown and the most that may still be flown. */
   onCase?: (done: number, planned: number) => void;
   signal?: AbortSignal;
@@ -28,6 +31,8 @@ export interface CaseResult {
   keepOutArea_m2: number;
   keepOutMaxDistance_m: number;
   failedSamples: number;
+  /** The launcher as flown at this grid point: azimuth and lean from vertical, degrees. */
+  rail?: { azimuth: number; tilt: number };
 }
 
 export interface DirectionLimit {
@@ -41,6 +46,8 @@ export interface DirectionLimit {
   firstFailure: string[];
   /** Grid points flown for this direction, by speed. */
   cases: CaseResult[];
+  /** The launcher as aimed for this direction (when an aim was given). */
+  rail?: { azimuth: number; tilt: number };
 }
 
 export interface EnvelopeResult {
@@ -52,6 +59,8 @@ export interface EnvelopeResult {
   method: 'bisection' | 'exhaustive';
   forecast: { from: number; speed: number };
   limits: DirectionLimit[];
+  /** How the launcher was aimed (absent: fixed at the scenario's azimuth, as before aims existed). */
+  aim?: Aim;
   casesFlown: number;
   elapsed_s: number;
 }
@@ -79,9 +88,11 @@ export async function windEnvelope(scenario: Scenario, options: EnvelopeOptions)
       const known = cases.get(k);
       if (known) return known;
       if (options.signal?.aborted) throw options.signal.reason;
-      const c = windCase(scenario, from, speeds[k]);
+      const c = aimedScenario(windCase(scenario, from, speeds[k]), from, options.aim);
       const run = await options.execute(c, options.samples, options.seed, options.signal);
       const result = judgeCase(c, run, speeds[k]);
+      const rail = options.aim ? railOf(c) : null;
+      if (rail !== null) result.rail = rail;
       cases.set(k, result);
       done++;
       options.onCase?.(done, Math.max(planned, done));
@@ -117,6 +128,7 @@ export async function windEnvelope(scenario: Scenario, options: EnvelopeOptions)
       aboveGrid: firstFail < 0,
       firstFailure: firstFail >= 0 ? cases.get(firstFail)!.failing : [],
       cases: flown,
+      ...(flown[0]?.rail ? { rail: flown[0].rail } : {}),
     });
   }
   return {
@@ -128,6 +140,7 @@ export async function windEnvelope(scenario: Scenario, options: EnvelopeOptions)
     method: options.exhaustive ? 'exhaustive' : 'bisection',
     forecast: { from: scenario.weather.wind.from, speed: scenario.weather.wind.speed },
     limits,
+    ...(options.aim ? { aim: options.aim } : {}),
     casesFlown: done,
     elapsed_s: (Date.now() - started) / 1000,
   };

@@ -34,6 +34,30 @@ export const ENVELOPE_STYLE = {
 } as const;
 
 const HATCH_SPACING = 5;
+
+/** The surface wind above which launches are usually called off: about 20 mph (common practice, no source). */
+export const SURFACE_WIND_CEILING_M_S = 9;
+const CEILING_STROKE = { color: '#8a2f0a', width: 1, dash: [6, 2, 1, 2] };
+
+/** Letters for the tests, in the order zone-tests.ts checks them. */
+const FAILURE_LETTERS: [RegExp, string, string][] = [
+  [/^site boundary/, 'B', 'site boundary'],
+  [/^spectators:/, 'S', 'spectators'],
+  [/^parking:/, 'P', 'parking'],
+  [/^road:/, 'R', 'road'],
+  [/^building:/, 'H', 'building'],
+];
+
+/** "BS" for a limit where the boundary and a spectator area fail first; "?" for any other reason. */
+export function failureCode(failing: readonly string[]): string {
+  const letters: string[] = [];
+  for (const f of failing) {
+    const hit = FAILURE_LETTERS.find(([re]) => re.test(f));
+    const letter = hit ? hit[1] : '?';
+    if (!letters.includes(letter)) letters.push(letter);
+  }
+  return letters.join('');
+}
 const LABEL_SIZE = 8;
 
 export interface PolarChartOptions {
@@ -144,6 +168,14 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
     }),
   });
 
+  // The surface-wind ceiling most launch rules use: common practice (no source), about 9 m/s (20 mph).
+  const [, ceilingY] = frame.point(0, SURFACE_WIND_CEILING_M_S);
+  const ceilingR = cy - ceilingY;
+  const drawCeiling = ceilingR <= radius * 1.0001;
+  if (drawCeiling) {
+    shapes.push({ kind: 'circle', id: 'wind-ceiling', className: 'wind-ceiling', cx, cy, r: ceilingR, stroke: CEILING_STROKE });
+  }
+
   const corners = envelopeOutline(e, frame);
   shapes.push({ kind: 'group', className: 'envelope-shape', shapes: envelopeShapes(corners, 2.2, true) });
 
@@ -156,6 +188,20 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
       return d.aboveGrid
         ? { kind: 'path', className: 'above-grid', data, d: topOfGridMarker(px, py), fill: { color: ENVELOPE_STYLE.outline } }
         : { kind: 'circle', className: 'limit', data, cx: px, cy: py, r: 2.4, fill: { color: ENVELOPE_STYLE.outline } };
+    }),
+  });
+
+  // Which test fails first above each limit, as a letter beside the limit point (key in the legend).
+  shapes.push({
+    kind: 'group',
+    className: 'first-failure',
+    shapes: e.limits.flatMap((d): Shape[] => {
+      const code = failureCode(d.firstFailure);
+      if (code === '') return [];
+      const [px, py] = frame.point(d.from, d.limit ?? 0);
+      const r = Math.hypot(px - cx, py - cy) + 9;
+      const [lx, ly] = r > 9.5 ? frame.at(d.from, r) : [px + 7, py - 7];
+      return [{ kind: 'text', className: 'failure-code', data: { from: String(d.from) }, x: lx, y: ly + (8 * CAP_HEIGHT) / 2, text: code, size: 8, font: 'bold', anchor: 'middle', color: ENVELOPE_STYLE.outside }];
     }),
   });
 
@@ -212,6 +258,19 @@ export function polarChartLegend(e: EnvelopeResult, forecastText: string): Legen
     });
   }
   entries.push({ swatch: { kind: 'custom', draw: (x, yMid, width) => forecastMarker(x + width / 2, yMid) }, text: forecastText });
+  const codes = [...new Set(e.limits.map((d) => failureCode(d.firstFailure)).join('').split('').filter((c) => c !== ''))];
+  if (codes.length > 0) {
+    const key = FAILURE_LETTERS.filter(([, letter]) => codes.includes(letter)).map(([, letter, words]) => `${letter} ${words}`);
+    if (codes.includes('?')) key.push('? too few landings');
+    entries.push({
+      swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'text', x: x + width / 2, y: yMid + 2.5, text: 'B S', size: 8, font: 'bold', anchor: 'middle', color: ENVELOPE_STYLE.outside }] },
+      text: `first test to fail above the limit: ${key.join(', ')}`,
+    });
+  }
+  if (Math.max(...e.speeds) >= SURFACE_WIND_CEILING_M_S) entries.push({
+    swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'path', d: [['M', x, yMid], ['L', x + width, yMid]], stroke: CEILING_STROKE }] },
+    text: 'about 9 m/s (20 mph) surface wind: the ceiling common practice sets for launches (no source; the local code governs)',
+  });
   entries.push({
     swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'path', d: [['M', x, yMid], ['L', x + width, yMid]], stroke: { color: ENVELOPE_STYLE.ring, width: 0.6, dash: [2, 2.5] } }] },
     text: 'mean wind speed at the reference height',

@@ -67,9 +67,11 @@ function checkEnvelope(file: string, json: unknown): EnvelopeRecord {
       limit: d.limit as number | null,
       aboveGrid: d.aboveGrid as boolean,
       firstFailure: d.firstFailure as string[],
+      ...(isRail(d.rail) ? { rail: d.rail } : {}),
       // JSON keeps NaN areas as null; the page does not draw them, but the type wants numbers.
       cases: (d.cases as Record<string, unknown>[]).map((k) => ({ ...k, keepOutArea_m2: (k.keepOutArea_m2 as number | null) ?? NaN, keepOutMaxDistance_m: (k.keepOutMaxDistance_m as number | null) ?? NaN }) as CaseResult),
     })) as DirectionLimit[],
+    ...(isAim(o.aim) ? { aim: o.aim } : {}),
     casesFlown: o.casesFlown as number,
     elapsed_s: typeof o.elapsed_s === 'number' ? o.elapsed_s : NaN,
   };
@@ -81,4 +83,13 @@ export function readEnvelopeFolder(folder: string): EnvelopeRecord {
   if (!existsSync(folder)) throw new ResultsFolderError(`${folder}: no such folder`);
   if (!statSync(folder).isDirectory()) throw new ResultsFolderError(`${folder}: is a file; expected the folder strewn envelope wrote`);
   return checkEnvelope(join(folder, ENVELOPE_FILE), parse(folder, ENVELOPE_FILE, readText(folder, ENVELOPE_FILE)));
+}
+
+function isRail(x: unknown): x is { azimuth: number; tilt: number } {
+  return typeof x === 'object' && x !== null && typeof (x as { azimuth?: unknown }).azimuth === 'number' && typeof (x as { tilt?: unknown }).tilt === 'number';
+}
+
+function isAim(x: unknown): x is NonNullable<EnvelopeResult['aim']> {
+  const a = x as { mode?: unknown; maxTilt?: unknown } | null;
+  return typeof a === 'object' && a !== null && (a.mode === 'fixed' || a.mode === 'into-wind' || a.mode === 'away-from') && typeof a.maxTilt === 'number';
 }

@@ -23,7 +23,7 @@ import { textLines, verdictShapes } from './chart.js';
 import type { EnvelopeResult } from './envelope.js';
 import { polarChart, polarChartLegend } from './polar-chart.js';
 import { compassLabel } from './polar-frame.js';
-import { envelopeSubtitle, envelopeTitle, failureWords, forecastWords, gridWords, limitWords, methodWords } from './wording.js';
+import { aimWords, envelopeSubtitle, envelopeTitle, failureWords, forecastWords, gridWords, limitWords, methodWords } from './wording.js';
 
 /** An envelope as envelope.json keeps it: the result and what ties it to a scenario and a program. */
 export interface EnvelopeRecord {
@@ -64,6 +64,7 @@ function facts(record: EnvelopeRecord, options: SheetOptions): { label: string; 
   const e = record.envelope;
   return [
     { label: 'Scenario', value: e.name },
+    { label: 'Launcher', value: `${aimWords(e)}. Common practice (no source) calls launches off above about 9 m/s (20 mph) of surface wind; the chart marks it.` },
     { label: 'Method', value: `${methodWords(e)}. Each grid point flies the scenario with its spreads and failure modes; the same seed at every point keeps pass and fail in step with the wind speed.` },
     { label: 'Grid', value: gridWords(e, options.units) },
     { label: 'Samples and seed', value: `${grouped(e.samples)} samples per grid point, seed ${e.seed}` },
@@ -173,7 +174,7 @@ function drawTable(plan: EnvelopePlan, from: number, to: number, y: number, widt
       if (k > 0) shapes.push({ kind: 'path', d: [['M', x0, lineY], ['L', x0 + groupWidth, lineY]], stroke: { color: '#d0d0d0', width: 0.4 } });
       // Capitals centred between the rules (the row's text has few descenders).
       baseline = lineY + (ROW + SIZE * CAP_HEIGHT) / 2 + 0.4;
-      const cells = [compassLabel(d.from), limitWords(d, e, units), failureWords(d)];
+      const cells = [d.rail ? `${compassLabel(d.from)}, rail ${Math.round(d.rail.azimuth)}\u00b0` : compassLabel(d.from), limitWords(d, e, units), failureWords(d)];
       cells.forEach((text, i) =>
         shapes.push({ kind: 'text', x: lefts[i] + (i === 0 ? 0 : 2), y: baseline, text: fit(measure, text, widths[i] - 4), size: SIZE, font: i === 1 ? 'bold' : 'regular', anchor: 'start', color: INK }),
       );

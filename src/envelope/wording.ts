@@ -49,6 +49,21 @@ export function limitWords(d: DirectionLimit, e: Pick<EnvelopeResult, 'speeds'>,
   return d.aboveGrid ? `at least ${speed(d.limit)} (top of the grid)` : `up to ${speed(d.limit)}`;
 }
 
+/** The launcher as aimed for a direction ("rail toward 250°, 5° from vertical"), or ''. */
+export function railWords(d: DirectionLimit): string {
+  return d.rail ? `rail toward ${Math.round(d.rail.azimuth)}\u00b0, ${Math.round(d.rail.tilt * 10) / 10}\u00b0 from vertical` : '';
+}
+
+/** How the launcher was aimed, for the method notes. */
+export function aimWords(e: Pick<EnvelopeResult, 'aim'>): string {
+  const a = e.aim;
+  if (!a) return "rail fixed at the scenario's azimuth";
+  const cap = `lean at most ${a.maxTilt}\u00b0 from vertical`;
+  if (a.mode === 'fixed') return `rail fixed at the scenario's azimuth; ${cap}`;
+  if (a.mode === 'into-wind') return `rail turned into each wind direction; ${cap}`;
+  return `rail leaning away from ${a.area}; ${cap}`;
+}
+
 /** The test that fails first above the limit, or why there is none. */
 export function failureWords(d: DirectionLimit): string {
   if (d.firstFailure.length > 0) return d.firstFailure.join('; ');

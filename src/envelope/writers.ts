@@ -3,9 +3,13 @@ import { csvField } from '../analysis/areasCsv.js';
 
 /** envelope.csv: one row per direction. An empty limit means the lowest speed of the grid fails. */
 export function writeEnvelopeCsv(e: EnvelopeResult): string {
-  const lines = ['direction_deg,limit_speed_m_s,limit_is_grid_top,first_failing_test'];
+  // The rail columns come only with an aim, so files without one keep their columns.
+  const rail = e.aim !== undefined;
+  const lines = [`direction_deg,limit_speed_m_s,limit_is_grid_top,first_failing_test${rail ? ',rail_azimuth_deg,rail_tilt_deg' : ''}`];
   for (const d of e.limits) {
-    lines.push([d.from, d.limit ?? '', d.aboveGrid ? 'yes' : 'no', csvField(d.firstFailure.join('; '))].join(','));
+    const row = [d.from, d.limit ?? '', d.aboveGrid ? 'yes' : 'no', csvField(d.firstFailure.join('; '))];
+    if (rail) row.push(d.rail?.azimuth ?? '', d.rail?.tilt ?? '');
+    lines.push(row.join(','));
   }
   return lines.join('\n') + '\n';
 }

@@ -6,6 +6,7 @@ import { weightedQuantile } from '../analysis/weightedStats.js';
 import { FAILURE_REASONS } from '../flight/status.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import { VERSION } from '../version.js';
+import { chanceOverDuration } from '../scenario/normalize.js';
 import { CAUTION } from './caution.js';
 import { nominalFigures, type ApogeePoint, type StabilitySummary } from './stability.js';
 import type { StudySensitivity } from '../sensitivity/study.js';
@@ -30,7 +31,13 @@ export interface RunSummary extends SummaryParts {
   apogee_m: Spread5;
   flightTime_s: Spread5;
   farthestLanding: { distance_m: number; bearing_deg: number; sample: number; mode: string } | null;
-  modes: { name: string; probability: number; samples: number; landed: number }[];
+  modes: { name: string; probability: number; samples: number; landed: number; rate_per_h?: number }[];
+  /**
+   * A released object's operation (a drone flight), when the file gives its duration or a rate:
+   * every figure above is per release (per time the object comes down); with a rate, the chance
+   * that it comes down at all in one operation is 1 − e^(−λT).
+   */
+  operation?: { duration_s: number | null; rate_per_h: number | null; chanceOfRelease: number | null };
   /** What drives the spread of the landings (absent when the scenario has no spreads). */
   sensitivity?: StudySensitivity;
   /** Rockets with a shape: stability figures (scenario format, "vehicle.shape"). */
@@ -116,13 +123,22 @@ export function buildRunSummary(
       probability: run.plan.probability[m],
       samples: run.plan.counts[m],
       landed: landed[m],
+      ...(m > 0 && scenario.failures[m - 1]?.rate !== undefined ? { rate_per_h: scenario.failures[m - 1].rate! * 3600 } : {}),
     })),
+    ...operationPart(scenario),
     ...parts,
     ...(sensitivity ? { sensitivity } : {}),
     ...nominalParts(scenario),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };
+}
+
+function operationPart(scenario: Scenario): Pick<RunSummary, 'operation'> {
+  const l = scenario.launch;
+  if (l.kind !== 'release' || (l.duration === undefined && l.rate === undefined)) return {};
+  const chance = l.rate !== undefined && l.duration !== undefined ? chanceOverDuration(l.rate, l.duration) : null;
+  return { operation: { duration_s: l.duration ?? null, rate_per_h: l.rate === undefined ? null : l.rate * 3600, chanceOfRelease: chance } };
 }
 
 /** The stability figures and the nominal apogee point, from one nominal flight. */

@@ -22,6 +22,12 @@ export function formatRunSummary(s: RunSummary, folder: string): string {
   lines.push(`  samples        ${s.samples.toLocaleString('en')} (seed ${s.seed})${s.failedSamples > 0 ? `, ${s.failedSamples.toLocaleString('en')} failed` : ', none failed'}`);
   for (const f of s.failures) lines.push(`                 ${f.samples.toLocaleString('en')} ${f.reason}`);
   for (const m of s.modes) if (m.name !== 'nominal' || s.modes.length > 1) lines.push(`  mode           ${m.name}: probability ${(m.probability * 100).toFixed(1)} %, ${m.samples.toLocaleString('en')} samples`);
+  const op = s.operation;
+  if (op !== undefined) {
+    const length = op.duration_s === null ? '' : `${(op.duration_s / 60).toPrecision(3).replace(/\.?0+$/, '')} min`;
+    const chance = op.chanceOfRelease === null ? '' : `; comes down ${op.rate_per_h} times per flight hour: chance ${percent(op.chanceOfRelease)} per operation (1 − e^(−λT)); the figures below are per release`;
+    lines.push(`  operation      ${length}${chance}`);
+  }
   lines.push(`  apogee         median ${metres(s.apogee_m.p50)}, 5–95 % ${metres(s.apogee_m.p05)} – ${metres(s.apogee_m.p95)}, highest ${metres(s.apogee_m.max)}`);
   if (s.farthestLanding) {
     const f = s.farthestLanding;

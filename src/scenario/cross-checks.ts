@@ -11,7 +11,8 @@ export function crossCheck(raw: Record<string, unknown>, kind: VehicleKind | und
   return [
     ...referenceAreaChecks(raw.vehicle),
     ...recoveryChecks(raw.recovery, kind),
-    ...failureChecks(raw.failures, stageNames, Array.isArray(raw.recovery) && raw.recovery.length > 0),
+    ...failureChecks(raw.failures, stageNames, Array.isArray(raw.recovery) && raw.recovery.length > 0, operationDuration(raw, kind)),
+    ...releaseRouteChecks(raw.launch, kind),
     ...gustChecks(raw.weather),
     ...profileChecks(raw.weather),
     ...uncertaintyChecks(raw, kind),
@@ -92,11 +93,50 @@ function recoveryStageNames(recovery: unknown): string[] {
   return recovery.flatMap((stage: unknown) => (isRecord(stage) && typeof stage.name === 'string' ? [stage.name] : []));
 }
 
-function failureChecks(failures: unknown, stageNames: string[], hasStages: boolean): Issue[] {
+/**
+ * The operation's duration in seconds when the launch gives a readable one (releases only);
+ * `null` when the scenario cannot have one, `undefined` when it is missing or unreadable.
+ */
+function operationDuration(raw: Record<string, unknown>, kind: VehicleKind | undefined): number | null | undefined {
+  if (kind !== 'release') return null;
+  if (!isRecord(raw.launch) || raw.launch.duration === undefined) return undefined;
+  const d = convertQuantity(raw.launch.duration, 'time');
+  return d.ok && d.value > 0 ? d.value : undefined;
+}
+
+/** A release starts at one point, along a path or over an area: one of the three. */
+function releaseRouteChecks(launch: unknown, kind: VehicleKind | undefined): Issue[] {
+  if (kind !== 'release' || !isRecord(launch)) return [];
+  const issues: Issue[] = [];
+  const hasPath = launch.path !== undefined;
+  const hasArea = launch.area !== undefined;
+  const hasOffset = launch.east !== undefined || launch.north !== undefined;
+  if (hasPath && hasArea) issues.push({ path: 'launch.area', message: 'give either path or area, not both' });
+  if ((hasPath || hasArea) && hasOffset) {
+    issues.push({ path: launch.east !== undefined ? 'launch.east' : 'launch.north', message: `east/north give one release point; remove them when a ${hasPath ? 'path' : 'area'} gives where it flies` });
+  }
+  if (!hasPath && !hasArea && launch.heading === undefined) {
+    issues.push({ path: 'launch.heading', message: 'missing (required); give the heading, or a path that the heading follows' });
+  }
+  if (hasPath && launch.heading !== undefined) {
+    issues.push({ path: 'launch.heading', message: 'the heading follows the path; remove it (a launch.azimuth spread still turns it)' });
+  }
+  if (hasPath) {
+    const speed = convertQuantity(launch.speed, 'speed');
+    if (speed.ok && !(speed.value > 0)) issues.push({ path: 'launch.speed', message: `${speed.shown} along a path never gets anywhere; expected the speed along the path, more than 0 m/s` });
+  }
+  if (launch.rate !== undefined && launch.duration === undefined) {
+    issues.push({ path: 'launch.duration', message: 'missing; a rate per flight hour needs the operation\'s duration to become a chance per operation' });
+  }
+  return issues;
+}
+
+function failureChecks(failures: unknown, stageNames: string[], hasStages: boolean, duration: number | null | undefined): Issue[] {
   if (!Array.isArray(failures)) return [];
   const issues: Issue[] = [];
   const seen = new Map<string, number>();
   let total = 0;
+  let rateTotal = 0;
   let allReadable = true;
   failures.forEach((failure: unknown, i) => {
     if (!isRecord(failure)) {
@@ -119,10 +159,34 @@ function failureChecks(failures: unknown, stageNames: string[], hasStages: boole
       if (earlier !== undefined) issues.push({ path: `failures[${i}].name`, message: `'${failure.name}' is already the name of failures[${earlier}]; names must be unique` });
       else seen.set(failure.name, i);
     }
-    const p = convertQuantity(failure.probability, 'fraction');
-    if (p.ok) total += p.value;
-    else allReadable = false;
+    const hasP = failure.probability !== undefined;
+    const hasRate = failure.rate !== undefined;
+    if (hasP && hasRate) {
+      issues.push({ path: `failures[${i}].rate`, message: 'give either probability (per flight) or rate (per flight hour), not both' });
+      allReadable = false;
+    } else if (!hasP && !hasRate) {
+      issues.push({ path: `failures[${i}].probability`, message: "missing (required); give the probability per flight, or a rate per flight hour such as '0.05 /h'" });
+      allReadable = false;
+    } else if (hasRate) {
+      if (duration === null) {
+        issues.push({ path: `failures[${i}].rate`, message: 'a rate per flight hour needs a released object with launch.duration; give a probability per flight instead' });
+        allReadable = false;
+      } else if (duration === undefined) {
+        issues.push({ path: `failures[${i}].rate`, message: 'a rate per flight hour needs launch.duration (the length of the operation) to become a chance per operation' });
+        allReadable = false;
+      } else {
+        const r = convertQuantity(failure.rate, 'rate');
+        if (r.ok) rateTotal += r.value;
+        else allReadable = false;
+      }
+    } else {
+      const p = convertQuantity(failure.probability, 'fraction');
+      if (p.ok) total += p.value;
+      else allReadable = false;
+    }
   });
+  // Rate modes compete over the operation: together they take 1 − e^(−ΛT) (see normalize.ts).
+  if (rateTotal > 0 && typeof duration === 'number') total += 1 - Math.exp(-rateTotal * duration);
   // A small tolerance so that 0.1 + 0.2 + 0.7 (which sums to 1.0000000000000002) passes.
   if (allReadable && total > 1 + 1e-9) {
     issues.push({ path: 'failures', message: `the probabilities add up to ${Number(total.toPrecision(6))}; they must add up to at most 1` });

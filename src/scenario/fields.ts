@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { isRecord } from './cross-checks.js';
 import { closestMatch, describeValue, unknownFieldMessage } from './errors.js';
 import { convertQuantity, siUnit, type Dimension, type Quantity } from './units.js';
-import { UNCERTAINTY_NAMES, type PolygonGeometry, type Spread, type UncertaintyName } from './types.js';
+import { UNCERTAINTY_NAMES, type LineStringGeometry, type PolygonGeometry, type Spread, type UncertaintyName } from './types.js';
 
 /**
  * Readers for single fields of the scenario file, as zod schemas. Each takes the value as
@@ -191,6 +191,28 @@ export const polygon = leaf((value): LeafResult<PolygonGeometry> => {
   });
   if (problems.length > 0) return { ok: false, problems };
   return ok({ type: 'Polygon', coordinates: rings as number[][][] });
+});
+
+/** GeoJSON LineString (RFC 7946): at least two [lon, lat] positions. */
+export const lineString = leaf((value): LeafResult<LineStringGeometry> => {
+  if (!isRecord(value)) {
+    return fail(`${value === undefined ? 'missing (required)' : describeValue(value)}; expected a GeoJSON LineString geometry {"type": "LineString", "coordinates": [[lon, lat], ...]}`);
+  }
+  if (value.type !== 'LineString') {
+    const hint = value.type === 'Feature' ? ' (give the feature\'s "geometry", not the feature)' : '';
+    return fail(`type ${describeValue(value.type)} is not 'LineString'${hint}`, ['type']);
+  }
+  const positions = value.coordinates;
+  if (!Array.isArray(positions) || positions.length < 2) {
+    return fail(`${describeValue(positions)}; expected a list of at least two [lon, lat] positions`, ['coordinates']);
+  }
+  const problems: LeafProblem[] = [];
+  positions.forEach((position: unknown, p) => {
+    const problem = positionProblem(position);
+    if (problem !== undefined) problems.push({ path: ['coordinates', p], message: problem });
+  });
+  if (problems.length > 0) return { ok: false, problems };
+  return ok({ type: 'LineString', coordinates: positions as number[][] });
 });
 
 function positionProblem(position: unknown): string | undefined {

@@ -1,8 +1,14 @@
 import type { RawDrag } from './fields.js';
 import type { ParsedBody, ParsedRocketVehicle, ParsedScenario, ParsedStage, ParsedWeather } from './schema.js';
 import { shapeLength } from './shape-checks.js';
+// A pure leaf module (no imports): the path length is measured in the same local frame the
+// flights and the analysis use.
+import { createLocalFrame } from '../analysis/geodesy.js';
 import {
   UNCERTAINTY_NAMES,
+  type FailureMode,
+  type LineStringGeometry,
+  type ReleaseLaunch,
   type DragTable,
   type Launch,
   type Motor,
@@ -60,11 +66,11 @@ export function normalizeScenario(parsed: ParsedScenario, thrust?: { curve: Thru
     name: parsed.name,
     site: normalizeSite(parsed.site),
     vehicle: normalizeVehicle(parsed.body, thrust),
-    launch: normalizeLaunch(parsed.body),
+    launch: normalizeLaunch(parsed),
     recovery: (parsed.recovery ?? []).map((stage) => normalizeStage(stage, parsed.body.vehicle.mass)),
     weather: normalizeWeather(parsed.weather),
     uncertainty: normalizeUncertainty(parsed.uncertainty),
-    failures: (parsed.failures ?? []).map((f) => ({ name: f.name, probability: f.probability, effect: f.effect ?? 'skip', stage: f.stage })),
+    failures: normalizeFailures(parsed),
     run: normalizeRun(parsed.run),
   };
   if (parsed.notes !== undefined) scenario.notes = parsed.notes;
@@ -128,7 +134,8 @@ export function dragTable(drag: RawDrag): DragTable {
   return { mach: drag.map((row) => row[0]), cd: drag.map((row) => row[1]) };
 }
 
-function normalizeLaunch(body: ParsedBody): Launch {
+function normalizeLaunch(parsed: ParsedScenario): Launch {
+  const body = parsed.body;
   switch (body.kind) {
     case 'rocket':
       return { kind: 'rocket', rail: body.launch.rail, tilt: body.launch.tilt, azimuth: normalizeDirection(body.launch.azimuth) };
@@ -140,16 +147,67 @@ function normalizeLaunch(body: ParsedBody): Launch {
         azimuth: normalizeDirection(body.launch.azimuth),
         height: body.launch.height ?? 0,
       };
-    case 'release':
-      return {
+    case 'release': {
+      const l = body.launch;
+      const out: ReleaseLaunch = {
         kind: 'release',
-        height: body.launch.height,
-        speed: body.launch.speed,
-        heading: normalizeDirection(body.launch.heading),
-        east: body.launch.east ?? 0,
-        north: body.launch.north ?? 0,
+        height: l.height,
+        speed: l.speed,
+        heading: normalizeDirection(l.heading ?? 0),
+        east: l.east ?? 0,
+        north: l.north ?? 0,
       };
+      if (l.heading === undefined) out.headingFree = true;
+      if (l.path !== undefined) out.path = l.path;
+      if (l.area !== undefined) out.area = l.area;
+      const duration = l.duration ?? (l.path !== undefined && l.speed > 0 ? pathLength(parsed.site.pad, l.path) / l.speed : undefined);
+      if (duration !== undefined) out.duration = duration;
+      if (l.rate !== undefined) out.rate = l.rate;
+      return out;
+    }
   }
+}
+
+/** Length of a path in metres, measured in the pad's local frame (as the flights are). */
+export function pathLength(pad: { lat: number; lon: number }, path: LineStringGeometry): number {
+  const frame = createLocalFrame(pad);
+  let length = 0;
+  let last: [number, number] | undefined;
+  for (const [lon, lat] of path.coordinates) {
+    const p = frame.toEastNorth(lon, lat);
+    if (last !== undefined) length += Math.hypot(p[0] - last[0], p[1] - last[1]);
+    last = p;
+  }
+  return length;
+}
+
+/**
+ * Chance per operation of a hazard with constant rate λ over a time T: 1 − e^(−λT) (the
+ * exponential failure law, e.g. P. D. T. O'Connor, Practical Reliability Engineering, ch. 2).
+ */
+export function chanceOverDuration(rate: number, duration: number): number {
+  return -Math.expm1(-rate * duration);
+}
+
+/**
+ * Failure modes with a chance per flight. Modes given as rates compete over the operation (the
+ * first failure ends it): together they take 1 − e^(−ΛT) with Λ the sum of their rates, and each
+ * its share λ/Λ of that; a single rate mode is exactly 1 − e^(−λT).
+ */
+function normalizeFailures(parsed: ParsedScenario): FailureMode[] {
+  const failures = parsed.failures ?? [];
+  const launch = parsed.body.kind === 'release' ? parsed.body.launch : undefined;
+  const duration = launch?.duration ?? 0;
+  const totalRate = failures.reduce((sum, f) => sum + (f.rate ?? 0), 0);
+  const together = chanceOverDuration(totalRate, duration);
+  return failures.map((f) => {
+    const out: FailureMode = { name: f.name, probability: f.probability ?? 0, effect: f.effect ?? 'skip', stage: f.stage };
+    if (f.rate !== undefined) {
+      out.rate = f.rate;
+      out.probability = totalRate > 0 ? (f.rate / totalRate) * together : 0;
+    }
+    return out;
+  });
 }
 
 function normalizeStage(stage: ParsedStage, mass: number): RecoveryStage {

@@ -8,6 +8,7 @@ import {
   forbidden,
   headCount,
   leaf,
+  lineString,
   levels,
   NOT_NEGATIVE,
   ok,
@@ -175,9 +176,14 @@ const projectileLaunchSchema = strict({
 const releaseLaunchSchema = strict({
   height: quantity('length', POSITIVE),
   speed: quantity('speed', NOT_NEGATIVE),
-  heading: quantity('angle'),
+  // Required unless a path gives it (cross-checks).
+  heading: optionalQuantity('angle'),
   east: optionalQuantity('length'),
   north: optionalQuantity('length'),
+  path: lineString.optional(),
+  area: polygon.optional(),
+  duration: optionalQuantity('time', POSITIVE),
+  rate: optionalQuantity('rate', NOT_NEGATIVE),
 });
 
 const stageSchema = strict({
@@ -213,7 +219,9 @@ const weatherSchema = strict({
 
 const failureSchema = strict({
   name: text('a name in quotes'),
-  probability: quantity('fraction', { min: 0, max: 1 }),
+  // Exactly one of probability and rate (cross-checks).
+  probability: optionalQuantity('fraction', { min: 0, max: 1 }),
+  rate: optionalQuantity('rate', NOT_NEGATIVE),
   // "skip" is the only effect in version 1, so it may be left out.
   effect: leaf((value): LeafResult<'skip'> => {
     if (value === 'skip') return ok('skip');

@@ -100,10 +100,26 @@ export interface ProjectileLaunch {
 export interface ReleaseLaunch {
   kind: 'release';
   height: number;
+  /** Horizontal speed at release, m/s; with a `path`, the speed along it. */
   speed: number;
+  /** deg; with a `path` the heading follows the path and this is only the nominal of a heading spread (0). */
   heading: number;
   east: number;
   north: number;
+  /** The route flown (lon, lat): the release point is uniform in time along it, heading along it. */
+  path?: LineStringGeometry;
+  /** The ground the operation covers (lon, lat): the release point is uniform over it. */
+  area?: PolygonGeometry;
+  /** Set when the file gives no heading (an area then draws a uniform heading). */
+  headingFree?: true;
+  /**
+   * Length of the operation, s: as given, or one pass along the path at `speed`. Turns failure
+   * rates into chances per operation; with a path longer than one pass the route is flown back
+   * and forth.
+   */
+  duration?: number;
+  /** How often the object comes down per second of flying (the file gives it per hour), if given. */
+  rate?: number;
 }
 
 export type Launch = RocketLaunch | ProjectileLaunch | ReleaseLaunch;
@@ -213,7 +229,10 @@ export type Spread =
 
 export interface FailureMode {
   name: string;
+  /** Chance per flight (or per operation, when the file gave a `rate`). */
   probability: number;
+  /** The rate per second the probability was worked out from, when the file gave one. */
+  rate?: number;
   effect: 'skip';
   /** A recovery stage name, or "all". */
   stage: string;
@@ -233,6 +252,11 @@ export interface RunSettings {
 }
 
 export type AreaKind = 'spectators' | 'parking' | 'road' | 'building' | 'water' | 'other';
+
+export interface LineStringGeometry {
+  type: 'LineString';
+  coordinates: number[][];
+}
 
 export interface PolygonGeometry {
   type: 'Polygon';

@@ -19,6 +19,7 @@ export type Dimension =
   | 'time'
   | 'fraction'
   | 'number'
+  | 'rate'
   | 'inertia';
 
 const FOOT = 0.3048;
@@ -145,8 +146,8 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
   time: {
     label: 'a time',
     si: 's',
-    listed: ['s', 'ms'],
-    units: { s: scale(1), ms: scale(0.001) },
+    listed: ['s', 'ms', 'min', 'h'],
+    units: { s: scale(1), ms: scale(0.001), min: scale(60), h: scale(3600) },
   },
   fraction: {
     label: "a fraction such as 0.05 or '5 %'",
@@ -165,6 +166,21 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     si: '',
     listed: [],
     units: {},
+  },
+  // How often something happens per unit of flying time (a failure rate). Read only from text
+  // with a unit: a bare 0.05 could mean per second or per hour, and the two differ 3600-fold.
+  rate: {
+    label: "a rate per flight time such as '0.05 /h'",
+    si: '/s',
+    listed: ['/h', '/min', '/s'],
+    units: {
+      '/s': scale(1),
+      '/min': (x) => x / 60,
+      '/h': (x) => x / 3600,
+      '/hour': (x) => x / 3600,
+      'per hour': (x) => x / 3600,
+      'per flight hour': (x) => x / 3600,
+    },
   },
 };
 
@@ -209,6 +225,9 @@ export function convertQuantity(
   const info = DIMENSIONS[dimension];
   const expected = expectedText(dimension);
   if (typeof value === 'number') {
+    if (dimension === 'rate') {
+      return { ok: false, message: `${describeValue(value)} has no unit; a rate needs one, e.g. '${value} /h' (per flight hour) or '${value} /s'` };
+    }
     if (!Number.isFinite(value)) return { ok: false, message: `${describeValue(value)} is not a finite number; expected ${expected}` };
     return { ok: true, value, relative: false, shown: withUnit(String(value), info.si) };
   }

@@ -108,6 +108,13 @@ function launchText(sc: Scenario, u: UnitFormatter): string {
     case 'projectile':
       return `${u.speed(l.speed)} at ${significant(l.elevation, 3)}\u00b0 above the horizontal toward ${bearingText(l.azimuth)}, from ${u.shortLength(l.height)} above the pad`;
     case 'release': {
+      const time = l.duration === undefined ? '' : `, operation ${significant(l.duration / 60, 3)} min`;
+      const rate = l.rate === undefined ? '' : `, comes down ${significant(l.rate * 3600, 3)} times per flight hour`;
+      if (l.path !== undefined) return `released ${u.length(l.height)} up anywhere along the route (uniform in time), moving ${u.speed(l.speed)} along it${time}${rate}`;
+      if (l.area !== undefined) {
+        const heading = !l.headingFree ? `toward ${bearingText(l.heading)}` : 'in any direction';
+        return `released ${u.length(l.height)} up anywhere over the operating area, moving ${u.speed(l.speed)} ${heading}${time}${rate}`;
+      }
       const offset = l.east === 0 && l.north === 0 ? 'above the pad' : `${u.length(Math.abs(l.east))} ${l.east >= 0 ? 'east' : 'west'} and ${u.length(Math.abs(l.north))} ${l.north >= 0 ? 'north' : 'south'} of the pad`;
       return `released ${u.length(l.height)} up, ${offset}, moving ${u.speed(l.speed)} toward ${bearingText(l.heading)}`;
     }
