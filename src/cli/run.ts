@@ -25,10 +25,11 @@ Options:
   --seed S          random seed (default: the scenario's run.seed)
   --workers W       worker threads (default: the number of CPU cores)
   --out DIR         results folder (default: results/<scenario file name>)
-  --force           replace DIR if it is not empty
+  --force           replace DIR if strewn wrote it (never a folder holding the scenario)
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
+  --allow-outside-files  let the scenario name files outside its own folder
   -h, --help        this help
 
 Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
@@ -49,13 +50,13 @@ export async function runCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
-  const loaded = loadForCommand(path, maxSamples);
+  const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
   const outDir = (values.out as string | undefined) ?? join('results', basename(path, extname(path)));
   const createWorker = nodeWorkerFactory();
-  const out = OutputFolder.prepare(outDir, values.force === true);
+  const out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
   if (!quiet && !json) printWarnings(loaded.warnings);
 
   const interrupt = interruptSignal();
