@@ -4,6 +4,7 @@ import { runInPool } from '../pool/pool.js';
 import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
 import { buildResultFiles } from '../report/result-files.js';
 import { formatRunSummary } from '../report/run-text.js';
+import { allFailedMessage } from '../report/run-summary.js';
 import { studyOutcome } from '../report/study.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
@@ -65,6 +66,7 @@ export async function runCommand(args: string[]): Promise<number> {
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
     bar.end();
     const { set, analysis, summary } = studyOutcome(scenario, loaded.hash, run, loaded.warnings);
+    if (summary.samples > 0 && summary.failedSamples === summary.samples) throw new Error(allFailedMessage(summary));
     for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
     // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
     // event loop: two turns (one is not enough) let it reach its handler; honour it before the
