@@ -9,6 +9,7 @@ import { writeAreasCsv } from '../analysis/areasCsv.js';
 import { writeKml } from '../analysis/kml.js';
 import { loadScenarioFile } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
+import { MAX_PAD_LATITUDE } from '../scenario/schema.js';
 import { CAUTION } from '../report/caution.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, onePositional } from './args.js';
@@ -48,7 +49,7 @@ function numbers(option: string, text: string, count: [number, number]): number[
 /** --pad LAT,LON[,ELEV], checked the same way whether or not a scenario is given too. */
 function padOption(text: string, defaultElevation: number): Site['pad'] {
   const [lat, lon, elevation = defaultElevation] = numbers('pad', text, [2, 3]);
-  if (Math.abs(lat) > 90) throw new UsageError(`--pad: latitude ${lat} is outside −90 to 90`);
+  if (Math.abs(lat) > MAX_PAD_LATITUDE) throw new UsageError(`--pad: latitude ${lat} is outside −${MAX_PAD_LATITUDE} to ${MAX_PAD_LATITUDE}; Strewn does not work within 0.1° (11 km) of a pole`);
   if (Math.abs(lon) > 180) throw new UsageError(`--pad: longitude ${lon} is outside −180 to 180`);
   if (Math.abs(elevation) > 100_000) throw new UsageError(`--pad: elevation ${elevation} m is outside −100,000 to 100,000 m`);
   return { lat, lon, elevation };

@@ -40,6 +40,8 @@ import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
  */
 
 export const DEFAULT_MAX_SAMPLES = 10_000_000;
+/** Highest pad latitude, degrees north or south. */
+export const MAX_PAD_LATITUDE = 89.9;
 export const VEHICLE_KINDS: readonly VehicleKind[] = ['rocket', 'projectile', 'release'];
 export const TRIGGER_KINDS: readonly TriggerKind[] = ['apogee', 'altitude', 'time'];
 export const AREA_KINDS: readonly AreaKind[] = ['spectators', 'parking', 'road', 'building', 'water', 'other'];
@@ -67,7 +69,9 @@ function strict<S extends z.core.$ZodLooseShape>(shape: S): z.ZodType<z.output<z
 
 const siteSchema = strict({
   pad: strict({
-    lat: quantity('angle', { min: -90, max: 90 }),
+    // The local frame (src/analysis/geodesy.ts) is exact to 89.9°; nearer the pole every
+    // longitude meets, so the pad must stay 11 km or more from it.
+    lat: quantity('angle', { min: -MAX_PAD_LATITUDE, max: MAX_PAD_LATITUDE, hint: () => 'Strewn does not work within 0.1° (11 km) of a pole' }),
     lon: quantity('angle', { min: -180, max: 180 }),
     elevation: optionalQuantity('length'),
   }),
