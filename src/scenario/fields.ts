@@ -44,8 +44,11 @@ export interface Bounds {
 
 function boundsProblem(given: unknown, q: Quantity, dimension: Dimension, b: Bounds): string | undefined {
   const v = q.value;
-  const tooLow = (b.min !== undefined && v < b.min) || (b.above !== undefined && v <= b.above);
-  const tooHigh = (b.max !== undefined && v > b.max) || (b.below !== undefined && v >= b.below);
+  // Inclusive bounds allow for the rounding of a unit conversion: -100 C is 173.14999999999998 K
+  // in binary floating point, and must meet a bound of 173.15 K.
+  const slack = (bound: number) => 1e-12 * Math.max(1, Math.abs(bound));
+  const tooLow = (b.min !== undefined && v < b.min - slack(b.min)) || (b.above !== undefined && v <= b.above);
+  const tooHigh = (b.max !== undefined && v > b.max + slack(b.max)) || (b.below !== undefined && v >= b.below);
   if (!tooLow && !tooHigh) return undefined;
   const unit = siUnit(dimension) === '' ? '' : ` ${siUnit(dimension)}`;
   const lo = b.min ?? b.above;

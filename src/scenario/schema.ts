@@ -30,6 +30,7 @@ import {
   type PathPart,
 } from './fields.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
+import { rawJsonIssues } from './raw-guards.js';
 
 /**
  * The raw scenario file (format version 1) as zod schemas. Structure and types are checked by
@@ -40,6 +41,12 @@ import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
  */
 
 export const DEFAULT_MAX_SAMPLES = 10_000_000;
+/**
+ * Farthest a distance on the site may reach (minimum distance, keep-out margin, release offset):
+ * flights and zones are computed in a flat local frame that holds within a few hundred kilometres.
+ */
+export const MAX_SITE_DISTANCE = 500_000;
+const FLAT_FRAME_HINT = "Strewn's flat local frame holds only within a few hundred kilometres of the pad";
 /** Highest pad latitude, degrees north or south. */
 export const MAX_PAD_LATITUDE = 89.9;
 export const VEHICLE_KINDS: readonly VehicleKind[] = ['rocket', 'projectile', 'release'];
@@ -75,7 +82,7 @@ const siteSchema = strict({
     lon: quantity('angle', { min: -180, max: 180 }),
     elevation: optionalQuantity('length'),
   }),
-  minimumDistance: optionalQuantity('length', NOT_NEGATIVE),
+  minimumDistance: optionalQuantity('length', { min: 0, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
   boundary: polygon.optional(),
   areas: z
     .array(
@@ -137,8 +144,8 @@ const releaseLaunchSchema = strict({
   height: quantity('length', POSITIVE),
   speed: quantity('speed', NOT_NEGATIVE),
   heading: quantity('angle'),
-  east: optionalQuantity('length'),
-  north: optionalQuantity('length'),
+  east: optionalQuantity('length', { min: -MAX_SITE_DISTANCE, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
+  north: optionalQuantity('length', { min: -MAX_SITE_DISTANCE, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
 });
 
 const stageSchema = strict({
@@ -190,7 +197,7 @@ const runSchema = (cap: number) =>
     levels,
     keepOut: strict({
       level: optionalQuantity('fraction', { above: 0, below: 1 }),
-      margin: optionalQuantity('length', NOT_NEGATIVE),
+      margin: optionalQuantity('length', { min: 0, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
     }).optional(),
   });
 
@@ -255,6 +262,8 @@ export function validateScenario(json: unknown, options: ValidateOptions = {}): 
   if (!isRecord(json)) {
     return { issues: [{ path: '', message: `${describeValue(json)}; expected the scenario to be a JSON object {...}` }] };
   }
+  const guarded = rawJsonIssues(json);
+  if (guarded.length > 0) return { issues: guarded };
   const issues: Issue[] = [];
   const top = parseWith(topSchema(cap), json, [], issues);
   const body = parseBody(json.vehicle, json.launch, issues);
