@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { isRecord } from './cross-checks.js';
 import { closestMatch, describeValue, unknownFieldMessage } from './errors.js';
 import { convertQuantity, siUnit, type Dimension, type Quantity } from './units.js';
+import { polygonShapeProblem } from './area-shape.js';
 import { UNCERTAINTY_NAMES, type PolygonGeometry, type Spread, type UncertaintyName } from './types.js';
 
 /**
@@ -193,6 +194,8 @@ export const polygon = leaf((value): LeafResult<PolygonGeometry> => {
     }
   });
   if (problems.length > 0) return { ok: false, problems };
+  const shape = polygonShapeProblem(rings as number[][][]);
+  if (shape !== undefined) return fail(shape.message, ['coordinates', shape.ring]);
   return ok({ type: 'Polygon', coordinates: rings as number[][][] });
 });
 

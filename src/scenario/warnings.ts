@@ -1,6 +1,7 @@
 import { descentRateForDragArea } from './normalize.js';
 import { formatNumber } from './units.js';
 import type { Issue, Scenario } from './types.js';
+import { plausibilityWarnings } from './plausibility.js';
 
 /**
  * Values outside common hobby practice. They are warnings, not errors: the governing numbers are
@@ -28,6 +29,7 @@ export const scenarioWarnings: ScenarioCheck = (scenario) => [
   ...railTiltWarnings(scenario),
   ...surfaceWindWarnings(scenario),
   ...descentRateWarnings(scenario),
+  ...plausibilityWarnings(scenario),
 ];
 
 export function railTiltWarnings(scenario: Scenario): Issue[] {
