@@ -1,6 +1,7 @@
 import { csvParseRows } from 'd3-dsv';
 import type { LandingSet } from './types.js';
 import type { LocalFrame } from './geodesy.js';
+import { restoreFormulaText } from '../scenario/safe-text.js';
 
 /** A problem in a landings file, with the line it is on (1-based; 0 for the file as a whole). */
 export class LandingsInputError extends Error {
@@ -91,7 +92,7 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
     const w = weightCol >= 0 ? number(row, weightCol, 'weight', line) : 1;
     if (!(w > 0)) throw new LandingsInputError(line, `weight is ${w}; expected a positive number`);
     set.weight[i] = w;
-    const name = modeCol >= 0 ? (row[modeCol] ?? '').trim() || 'nominal' : 'nominal';
+    const name = modeCol >= 0 ? restoreFormulaText((row[modeCol] ?? '').trim()) || 'nominal' : 'nominal';
     let m = modeNames.indexOf(name);
     if (m < 0) {
       if (modeNames.length === 255) throw new LandingsInputError(line, 'more than 255 different modes');

@@ -3,6 +3,7 @@ import { isRecord } from './cross-checks.js';
 import { closestMatch, describeValue, unknownFieldMessage } from './errors.js';
 import { convertQuantity, siUnit, type Dimension, type Quantity } from './units.js';
 import { polygonShapeProblem } from './area-shape.js';
+import { NAME_CONTROL } from './safe-text.js';
 import { UNCERTAINTY_NAMES, type PolygonGeometry, type Spread, type UncertaintyName } from './types.js';
 
 /**
@@ -98,6 +99,10 @@ export const NOT_NEGATIVE: Bounds = { min: 0 };
 
 export const text = (what: string) =>
   leaf((value): LeafResult<string> => {
+    if (typeof value === 'string' && NAME_CONTROL.test(value)) {
+      const code = NAME_CONTROL.exec(value)![0].codePointAt(0)!;
+      return fail(`${describeValue(value.replace(new RegExp(NAME_CONTROL.source, 'g'), '?'))} holds the control character U+${code.toString(16).toUpperCase().padStart(4, '0')}; names may hold only printable characters (and tabs or line breaks)`);
+    }
     if (typeof value === 'string' && value.trim() !== '') return ok(value);
     if (value === undefined) return fail(`missing (required); expected ${what}`);
     return fail(`${describeValue(value)} is ${typeof value === 'string' ? 'empty' : 'not text'}; expected ${what}`);
