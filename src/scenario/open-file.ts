@@ -102,8 +102,4 @@ export function confineToFolder(baseDir: string, file: string, allowOutside: boo
   if (!isInside(realFile, realBase)) throw new InputFileError(outside);
 }
 
-/** The first 60 characters of a line of a file, for an error message (never more of the file). */
-export function excerpt(line: string, max = 60): string {
-  const clean = line.replace(/[\u0000-\u001f\u007f]/g, ' ');
-  return clean.length <= max ? clean : `${clean.slice(0, max - 1)}…`;
-}
+export { excerpt } from './safe-text.js';

@@ -36,3 +36,9 @@ export function xmlCharacters(text: string): string {
 
 /** Control characters refused in names (U+0000–U+001F but tab and line feed, and U+007F). */
 export const NAME_CONTROL = /[\u0000-\u0008\u000b-\u001f\u007f]/;
+
+/** The first 60 characters of a line of a file, for an error message (never more of the file). */
+export function excerpt(line: string, max = 60): string {
+  const clean = line.replace(/[\u0000-\u001f\u007f]/g, ' ');
+  return clean.length <= max ? clean : `${clean.slice(0, max - 1)}…`;
+}
