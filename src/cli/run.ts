@@ -67,12 +67,20 @@ export async function runCommand(args: string[]): Promise<number> {
     bar.end();
     const { set, analysis, summary } = studyOutcome(scenario, loaded.hash, run, loaded.warnings);
     if (summary.samples > 0 && summary.failedSamples === summary.samples) throw new Error(allFailedMessage(summary));
-    for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
-    // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
-    // event loop: two turns (one is not enough) let it reach its handler; honour it before the
-    // results appear.
-    for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
-    interrupt.signal.throwIfAborted();
+    // The analysis and the writing run in this thread, so a Ctrl-C or SIGTERM sent meanwhile waits
+    // in the event loop: two turns (one is not enough) let it reach its handler. They are given
+    // after the analysis and before each file, so a cancel is honoured at the next step and always
+    // before the results appear.
+    const honourCancel = async () => {
+      for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
+      interrupt.signal.throwIfAborted();
+    };
+    await honourCancel();
+    for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) {
+      await honourCancel();
+      out.write(name, content);
+    }
+    await honourCancel();
     out.commit();
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));

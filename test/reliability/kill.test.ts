@@ -43,3 +43,23 @@ describe('kill -9, then a new run', () => {
     expect(readdirSync(dir)).toEqual(['out']);
   }, 90_000);
 });
+
+describe('SIGTERM', () => {
+  it('while the results are being written stops the run (exit 130) and leaves nothing behind', async () => {
+    const dir = tempDir();
+    const out = join(dir, 'out');
+    const child = spawn(process.execPath, [CLI, 'run', join(SCENARIOS, 'drone-power-loss.json'), '--samples', '60000', '--workers', '1', '--out', out, '--quiet'], { cwd: ROOT, stdio: ['ignore', 'ignore', 'pipe'] });
+    let stderr = '';
+    child.stderr!.on('data', (d: Buffer) => (stderr += d.toString()));
+    const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
+    const deadline = Date.now() + 60_000;
+    while (!staging(dir).some((s) => existsSync(join(dir, s, 'landings.csv')))) {
+      if (Date.now() > deadline || child.exitCode !== null) throw new Error(`the writing was never seen: ${stderr}`);
+      await new Promise((resolve) => setTimeout(resolve, 5));
+    }
+    child.kill('SIGTERM');
+    expect(await exited).toBe(130);
+    expect(stderr).toBe('strewn: cancelled; nothing was written\n');
+    expect(readdirSync(dir)).toEqual([]);
+  }, 90_000);
+});
