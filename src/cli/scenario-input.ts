@@ -1,5 +1,5 @@
 import { loadScenarioFile, type LoadedScenario } from '../scenario/file.js';
-import { railExitSpeedWarnings } from '../scenario/warnings.js';
+import { machWarnings, railExitSpeedWarnings } from '../scenario/warnings.js';
 import { apogeeWarnings } from '../scenario/plausibility.js';
 import { flyNominal } from '../dispersion/runner.js';
 import type { Issue } from '../scenario/types.js';
@@ -8,7 +8,7 @@ import type { Issue } from '../scenario/types.js';
 export function loadForCommand(path: string, maxSamples?: number, allowOutsideFiles = false): LoadedScenario & { nominal: ReturnType<typeof flyNominal> } {
   const loaded = loadScenarioFile(path, { maxSamples, allowOutsideFiles });
   const nominal = flyNominal(loaded.scenario);
-  const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed), ...apogeeWarnings(nominal.apogee)];
+  const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed), ...machWarnings(loaded.scenario, nominal.maxMach), ...apogeeWarnings(nominal.apogee)];
   return { ...loaded, warnings, nominal };
 }
 
