@@ -7,10 +7,12 @@
  *   // name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note
  */
 import type { AreaResult } from './areas.js';
+import { neutraliseFormula } from '../scenario/safe-text.js';
 
+/** One CSV cell: RFC 4180 quoting, and text that a spreadsheet would run as a formula neutralised (safe-text.ts). */
 export function csvField(value: string | number | boolean | undefined | null): string {
   if (value === undefined || value === null) return '';
-  const text = String(value);
+  const text = typeof value === 'string' ? neutraliseFormula(value) : String(value);
   return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 

@@ -21,9 +21,14 @@ export interface Bandwidth {
   rule: string;
   /** True when the caller fixed the bandwidth. */
   overridden: boolean;
-  /** True when the landings were too tightly packed and the floor was used. */
+  /** True when the landings were too tightly packed along an axis and a floor was used. */
   floored: boolean;
+  /** True when they are packed within the floor along both axes. */
+  packed: boolean;
 }
+
+/** Largest ratio of the two axes' bandwidths. */
+export const MAX_AXIS_RATIO = 50;
 
 /** Smallest bandwidth used, m: below this the landings are treated as one point. */
 export const MIN_BANDWIDTH_M = 0.5;
@@ -49,18 +54,24 @@ export function scottBandwidth(
     const he = typeof override === 'number' ? override : override.east;
     const hn = typeof override === 'number' ? override : override.north;
     if (!(he > 0 && hn > 0)) throw new Error('bandwidth override must be positive');
-    return { east: he, north: hn, effectiveN, rule: 'set by the caller', overridden: true, floored: false };
+    return { east: he, north: hn, effectiveN, rule: 'set by the caller', overridden: true, floored: false, packed: false };
   }
   const factor = Math.pow(Math.max(effectiveN, 1), -1 / 6);
   const he = robustScale(east, weights) * factor;
   const hn = robustScale(north, weights) * factor;
   const floored = !(he >= MIN_BANDWIDTH_M && hn >= MIN_BANDWIDTH_M);
+  // Landings on one line (every north the same, say) give that axis no scale at all; a kernel
+  // kilometres long and half a metre wide draws contours of no area. Neither axis is let fall
+  // below 1/MAX_AXIS_RATIO of the other (common practice, no source: real dispersions are far
+  // rounder than that).
+  const wide = Math.max(he || 0, hn || 0) / MAX_AXIS_RATIO;
   return {
-    east: Math.max(he || 0, MIN_BANDWIDTH_M),
-    north: Math.max(hn || 0, MIN_BANDWIDTH_M),
+    east: Math.max(he || 0, MIN_BANDWIDTH_M, wide),
+    north: Math.max(hn || 0, MIN_BANDWIDTH_M, wide),
     effectiveN,
     rule: BANDWIDTH_RULE,
     overridden: false,
     floored,
+    packed: !(he >= MIN_BANDWIDTH_M) && !(hn >= MIN_BANDWIDTH_M),
   };
 }

@@ -119,8 +119,10 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
   const effectiveSamples = effectiveSampleSize(set.weight);
 
   const bandwidth = scottBandwidth(set.east, set.north, set.weight, options.bandwidth);
-  if (bandwidth.floored) {
+  if (bandwidth.packed) {
     warnings.push('The landings are packed within a metre or so; the contours mostly show the smoothing kernel.');
+  } else if (bandwidth.floored) {
+    warnings.push('The landings lie along a line (one direction has almost no scatter); the contours across it mostly show the smoothing kernel.');
   }
   lap('bandwidth');
 
@@ -142,8 +144,10 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
   let peak = 0;
   for (let k = 0; k < grid.values.length; k++) peak = Math.max(peak, grid.values[k]);
   const allThresholds = sampleThresholds.map((t, k) => {
-    // A threshold at the peak encloses nothing: many samples share one point (no spread).
-    if (t < peak * (1 - 1e-6)) return t;
+    // A threshold at the peak encloses nothing: many samples share one point (no spread). With a
+    // few groups of coinciding landings the threshold sits at one group's peak instead; either way
+    // the region holds far less of the smoothed probability than its level says.
+    if (t < peak * (1 - 1e-6) && massAbove(grid.values, grid.dx * grid.dy, t) >= wanted[k] / 2) return t;
     warnings.push(
       `Many landings coincide, so the ${wanted[k]} region is drawn from the smoothed density and is wider than the data.`,
     );
@@ -240,3 +244,10 @@ export {
 export { writeAreasCsv } from './areasCsv.js';
 export { summaryParts } from './summary.js';
 export { writeKml } from './kml.js';
+
+/** Probability of the grid cells whose density is at least `threshold`. */
+function massAbove(values: Float64Array, cellArea: number, threshold: number): number {
+  let mass = 0;
+  for (let k = 0; k < values.length; k++) if (values[k] >= threshold) mass += values[k];
+  return mass * cellArea;
+}

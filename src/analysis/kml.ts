@@ -12,9 +12,10 @@ import type { AnalysisResult } from './index.js';
 import { polygonsOf } from './projectGeometry.js';
 import type { Ring } from './rings.js';
 import type { AreaGeometry } from './types.js';
+import { xmlCharacters } from '../scenario/safe-text.js';
 
 export function escapeXml(text: string): string {
-  return text
+  return xmlCharacters(text)
     .replace(/&/g, '&amp;')
     .replace(/</g, '&lt;')
     .replace(/>/g, '&gt;')

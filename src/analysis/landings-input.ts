@@ -1,6 +1,7 @@
 import { csvParseRows } from 'd3-dsv';
 import type { LandingSet } from './types.js';
 import type { LocalFrame } from './geodesy.js';
+import { excerpt, restoreFormulaText } from '../scenario/safe-text.js';
 
 /** A problem in a landings file, with the line it is on (1-based; 0 for the file as a whole). */
 export class LandingsInputError extends Error {
@@ -12,6 +13,12 @@ export class LandingsInputError extends Error {
     this.name = 'LandingsInputError';
   }
 }
+
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** Sample numbers are kept as 32-bit unsigned integers. */
+const MAX_SAMPLE_INDEX = 0xffffffff;
+/** Farthest a recorded landing may lie from the pad, m (the local frame's reach). */
+export const MAX_LANDING_DISTANCE = 500_000;
 
 /** Fewest landings that make a density estimate worth drawing. */
 export const MIN_LANDINGS = 10;
@@ -50,7 +57,7 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   const lon = col('lon');
   const local = east >= 0 && north >= 0;
   if (!local && !(lat >= 0 && lon >= 0)) {
-    throw new LandingsInputError(lines[0], `the header '${nonEmpty[0].join(',')}' has neither east_m and north_m nor lat and lon columns`);
+    throw new LandingsInputError(lines[0], `the header '${excerpt(nonEmpty[0].join(','))}' has neither east_m and north_m nor lat and lon columns`);
   }
   const modeCol = col('mode');
   const weightCol = col('weight');
@@ -70,8 +77,9 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   const modeNames: string[] = [];
   const number = (row: string[], c: number, what: string, line: number): number => {
     const cell = (row[c] ?? '').trim();
-    const v = cell === '' ? NaN : Number(cell);
-    if (!Number.isFinite(v)) throw new LandingsInputError(line, `${what} is '${cell}'; expected a number`);
+    // Plain decimals only: Number() would also read '0x10' as 16, '' as 0 and '1e400' as Infinity.
+    const v = DECIMAL.test(cell) ? Number(cell) : NaN;
+    if (!Number.isFinite(v)) throw new LandingsInputError(line, `${what} is '${excerpt(cell)}'; expected a decimal number`);
     return v;
   };
   body.forEach((row, i) => {
@@ -88,18 +96,32 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
       set.east[i] = e;
       set.north[i] = nn;
     }
+    const distance = Math.hypot(set.east[i], set.north[i]);
+    if (distance > MAX_LANDING_DISTANCE) {
+      throw new LandingsInputError(line, `the landing is ${Math.round(distance / 1000).toLocaleString('en')} km from the pad; the flat local frame holds only within ${MAX_LANDING_DISTANCE / 1000} km (check the unit and the pad)`);
+    }
     const w = weightCol >= 0 ? number(row, weightCol, 'weight', line) : 1;
     if (!(w > 0)) throw new LandingsInputError(line, `weight is ${w}; expected a positive number`);
     set.weight[i] = w;
-    const name = modeCol >= 0 ? (row[modeCol] ?? '').trim() || 'nominal' : 'nominal';
+    const name = modeCol >= 0 ? restoreFormulaText((row[modeCol] ?? '').trim()) || 'nominal' : 'nominal';
     let m = modeNames.indexOf(name);
     if (m < 0) {
       if (modeNames.length === 255) throw new LandingsInputError(line, 'more than 255 different modes');
       m = modeNames.push(name) - 1;
     }
     set.mode[i] = m;
-    set.sample[i] = sampleCol >= 0 && /^\d+$/.test((row[sampleCol] ?? '').trim()) ? Number(row[sampleCol]) : i;
+    const sampleCell = sampleCol >= 0 ? (row[sampleCol] ?? '').trim() : '';
+    if (/^\d+$/.test(sampleCell)) {
+      const index = Number(sampleCell);
+      if (!(index <= MAX_SAMPLE_INDEX)) throw new LandingsInputError(line, `sample is '${excerpt(sampleCell)}'; expected a whole number up to ${MAX_SAMPLE_INDEX.toLocaleString('en')}`);
+      set.sample[i] = index;
+    } else set.sample[i] = i;
   });
+  // Scaled by the largest weight first, so weights near the top of the number range (1e308)
+  // do not add up to Infinity.
+  let largest = 0;
+  for (let i = 0; i < n; i++) largest = Math.max(largest, set.weight[i]);
+  for (let i = 0; i < n; i++) set.weight[i] /= largest;
   const total = set.weight.reduce((a, b) => a + b, 0);
   const modeProbability = modeNames.map((_, m) => {
     let s = 0;

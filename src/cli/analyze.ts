@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { InputFileError, readRegularFile, SIZE_LIMITS } from '../scenario/open-file.js';
 import { basename, extname, join } from 'node:path';
 import { analyze } from '../analysis/index.js';
 import { createLocalFrame } from '../analysis/geodesy.js';
@@ -9,6 +9,7 @@ import { writeAreasCsv } from '../analysis/areasCsv.js';
 import { writeKml } from '../analysis/kml.js';
 import { loadScenarioFile } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
+import { MAX_PAD_LATITUDE } from '../scenario/schema.js';
 import { CAUTION } from '../report/caution.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, onePositional } from './args.js';
@@ -29,7 +30,8 @@ Options:
   --keep-out P          keep-out level (default 0.99 or the scenario's)
   --margin M            keep-out margin in metres (default 25 or the scenario's)
   --out DIR             results folder (default: results/<file name>-analysis)
-  --force               replace DIR if it is not empty
+  --force               replace DIR if strewn wrote it (never a folder holding the input)
+  --allow-outside-files the scenario may name files outside its own folder
   --quiet               print nothing but errors
   --json                print the summary as JSON on stdout
   -h, --help            this help
@@ -42,6 +44,15 @@ function numbers(option: string, text: string, count: [number, number]): number[
     throw new UsageError(`--${option}: '${text}' is not ${count[0] === count[1] ? count[0] : `${count[0]} to ${count[1]}`} numbers separated by commas`);
   }
   return values;
+}
+
+/** --pad LAT,LON[,ELEV], checked the same way whether or not a scenario is given too. */
+function padOption(text: string, defaultElevation: number): Site['pad'] {
+  const [lat, lon, elevation = defaultElevation] = numbers('pad', text, [2, 3]);
+  if (Math.abs(lat) > MAX_PAD_LATITUDE) throw new UsageError(`--pad: latitude ${lat} is outside −${MAX_PAD_LATITUDE} to ${MAX_PAD_LATITUDE}; Strewn does not work within 0.1° (11 km) of a pole`);
+  if (Math.abs(lon) > 180) throw new UsageError(`--pad: longitude ${lon} is outside −180 to 180`);
+  if (Math.abs(elevation) > 100_000) throw new UsageError(`--pad: elevation ${elevation} m is outside −100,000 to 100,000 m`);
+  return { lat, lon, elevation };
 }
 
 function probability(option: string, v: number): number {
@@ -60,6 +71,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     force: { type: 'boolean' },
     quiet: { type: 'boolean' },
     json: { type: 'boolean' },
+    'allow-outside-files': { type: 'boolean' },
   });
   if (values.help) {
     process.stdout.write(ANALYZE_HELP);
@@ -67,22 +79,20 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   const path = onePositional('analyze', positionals, 'landings CSV file');
   let site: Site;
+  const inputs = [path];
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
-    const loaded = loadScenarioFile(values.scenario as string);
+    const loaded = loadScenarioFile(values.scenario as string, { allowOutsideFiles: values['allow-outside-files'] === true });
+    inputs.push(...loaded.inputFiles);
     site = loaded.scenario.site;
     run = loaded.scenario.run;
   } else if (values.pad !== undefined) {
-    const [lat, lon, elevation = 0] = numbers('pad', values.pad as string, [2, 3]);
-    if (Math.abs(lat) > 90) throw new UsageError(`--pad: latitude ${lat} is outside −90 to 90`);
-    if (Math.abs(lon) > 180) throw new UsageError(`--pad: longitude ${lon} is outside −180 to 180`);
-    site = { pad: { lat, lon, elevation }, areas: [] };
+    site = { pad: padOption(values.pad as string, 0), areas: [] };
   } else {
     throw new UsageError('analyze: give the pad with --pad LAT,LON or a scenario with --scenario FILE');
   }
   if (values.pad !== undefined && values.scenario !== undefined) {
-    const [lat, lon, elevation = site.pad.elevation] = numbers('pad', values.pad as string, [2, 3]);
-    site = { ...site, pad: { lat, lon, elevation } };
+    site = { ...site, pad: padOption(values.pad as string, site.pad.elevation) };
   }
   if (values.levels !== undefined) {
     const levels = numbers('levels', values.levels as string, [1, 20]).map((v) => probability('levels', v));
@@ -98,10 +108,10 @@ export async function analyzeCommand(args: string[]): Promise<number> {
 
   let text: string;
   try {
-    text = readFileSync(path, 'utf8');
+    text = readRegularFile(path, SIZE_LIMITS.landingsCsv);
   } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    throw new UsageError(`${path}: cannot read the file${code === 'ENOENT' ? ': no such file' : code === 'EISDIR' ? ': it is a folder' : ''}`);
+    if (error instanceof InputFileError) throw new UsageError(`${path}: cannot read the file: ${error.message}`);
+    throw error;
   }
   const frame = createLocalFrame(site.pad);
   let set;
@@ -111,7 +121,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     if (error instanceof LandingsInputError) throw new UsageError(`${path}: ${error.message}`);
     throw error;
   }
-  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), values.force === true);
+  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), { force: values.force === true, inputs, say: values.quiet === true || values.json === true ? () => {} : undefined });
   try {
     const analysis = analyze(set, site, run);
     const summary = {

@@ -4,7 +4,7 @@ import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { nominalFigureLines, nominalFigures } from '../report/stability.js';
 
-export const CHECK_HELP = `Usage: strewn check <scenario.json> [--max-samples N]
+export const CHECK_HELP = `Usage: strewn check <scenario.json> [--max-samples N] [--allow-outside-files]
 
 Validates a scenario file and prints it normalised: every quantity in SI units (m, kg, s, m/s, N,
 Pa, K, m²; angles in degrees), every default filled in. Warnings for values outside common
@@ -12,18 +12,19 @@ practice go to stderr. Exit 0 when the scenario is valid, 2 when it is not.
 
 Options:
   --max-samples N   accept run.samples above the usual cap of 10,000,000
+  --allow-outside-files  let the scenario name files outside its own folder
   -h, --help        this help
 `;
 
 export async function checkCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs('check', args, { 'max-samples': { type: 'string' } });
+  const { values, positionals } = parseCommandArgs('check', args, { 'max-samples': { type: 'string' }, 'allow-outside-files': { type: 'boolean' } });
   if (values.help) {
     process.stdout.write(CHECK_HELP);
     return 0;
   }
   const path = onePositional('check', positionals, 'scenario file');
   const maxSamples = integerOption('max-samples', values['max-samples'] as string | undefined, 1, Number.MAX_SAFE_INTEGER);
-  const loaded = loadForCommand(path, maxSamples);
+  const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const sc = loaded.scenario;
   // Show the air the flight will actually meet, also where the file left it to the standard atmosphere.
   const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure);

@@ -44,7 +44,8 @@ Options:
   --units U           metric or imperial, for the chart and the page (default metric)
   --paper P           a4 or letter, for envelope.pdf (default a4)
   --out DIR           results folder (default: results/<scenario file name>-envelope)
-  --force             replace DIR if it is not empty
+  --force             replace DIR if strewn wrote it (never a folder holding the scenario)
+  --allow-outside-files  let the scenario name files outside its own folder
   --quiet             print nothing but errors
   --json              print the limits as JSON on stdout
   -h, --help          this help
@@ -85,12 +86,12 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
-  const loaded = loadForCommand(path);
+  const loaded = loadForCommand(path, undefined, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const aim = aimOption(values.aim as string | undefined, values['max-tilt'] as string | undefined, scenario);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = (values.seed as string | undefined) ?? scenario.run.seed;
-  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), values.force === true);
+  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
   if (!quiet && !json) printWarnings(loaded.warnings);
 
   const interrupt = interruptSignal();

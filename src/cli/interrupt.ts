@@ -25,4 +25,5 @@ export const STUDY_OPTIONS = {
   force: { type: 'boolean' },
   quiet: { type: 'boolean' },
   json: { type: 'boolean' },
+  'allow-outside-files': { type: 'boolean' },
 } as const;

@@ -60,7 +60,7 @@ export async function mergeCommand(args: string[]): Promise<number> {
   }
   const { folder: firstFolder, manifest: first } = ordered[0].value;
   const scenario = readShardScenario(firstFolder, first);
-  const out = OutputFolder.prepare(outDir, values.force === true);
+  const out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: ordered.map(({ value }) => value.folder) });
   const interrupt = interruptSignal();
   try {
     // One shard's columns at a time are read and copied into the study's columns.

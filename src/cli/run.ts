@@ -29,10 +29,11 @@ Options:
   --seed S          random seed (default: the scenario's run.seed)
   --workers W       worker threads (default: the number of CPU cores)
   --out DIR         results folder (default: results/<scenario file name>)
-  --force           replace DIR if it is not empty
+  --force           replace DIR if strewn wrote it (never a folder holding the scenario)
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
+  --allow-outside-files  let the scenario name files outside its own folder
   --shard K/N       fly only shard K of N (K from 0; contiguous sample ranges) into the shard
                     folder DIR/shard-K-of-N for strewn merge; auto/N takes K from
                     JOB_COMPLETION_INDEX or SLURM_ARRAY_TASK_ID (default DIR: results/<name>-shards)
@@ -80,7 +81,7 @@ interface RunSettings {
 
 async function runStudy(path: string, values: Record<string, unknown>, settings: RunSettings): Promise<number> {
   const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker } = settings;
-  const loaded = loadForCommand(path, maxSamples);
+  const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
@@ -88,7 +89,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   const outDir = shard
     ? join((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-shards`), shardFolderName(shard))
     : ((values.out as string | undefined) ?? join('results', basename(path, extname(path))));
-  const out = OutputFolder.prepare(outDir, values.force === true);
+  const out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
   if (!quiet && !json) printWarnings(loaded.warnings);
 
   const interrupt = interruptSignal();

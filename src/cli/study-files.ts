@@ -1,6 +1,6 @@
 import type { RunResult } from '../dispersion/results.js';
 import { buildResultFiles } from '../report/result-files.js';
-import type { RunSummary } from '../report/run-summary.js';
+import { allFailedMessage, type RunSummary } from '../report/run-summary.js';
 import { studyOutcome } from '../report/study.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import type { OutputFolder } from './output-folder.js';
@@ -12,6 +12,8 @@ import { PhaseTimer } from './phase-timer.js';
  */
 export function writeStudyFiles(out: OutputFolder, scenario: Scenario, hash: string, run: RunResult, warnings: Issue[], timer = new PhaseTimer()): RunSummary {
   const { set, analysis, summary } = studyOutcome(scenario, hash, run, warnings);
+  // Nothing landed: no figures to write (exit 1, the reasons counted).
+  if (summary.samples > 0 && summary.failedSamples === summary.samples) throw new Error(allFailedMessage(summary));
   timer.lap('analysis, sensitivity and summary');
   const files = buildResultFiles(scenario, set, analysis, summary);
   timer.lap('small result files and the sheet');

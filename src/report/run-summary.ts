@@ -77,6 +77,27 @@ function spread(values: Float64Array, weights: Float64Array, landed: Uint8Array)
   };
 }
 
+/** More than this share of failed samples is warned about wherever the results are shown. */
+export const FAILED_SHARE_WARNING = 0.01;
+
+function reasonsText(failures: { reason: string; samples: number }[]): string {
+  return failures.map((f) => `${f.samples.toLocaleString('en')} ${f.reason}`).join(', ');
+}
+
+/** The warning for a run in which more than 1 % of the samples failed (none below that). */
+export function failureWarnings(samples: number, failed: number, failures: { reason: string; samples: number }[]): string[] {
+  if (!(samples > 0) || failed / samples <= FAILED_SHARE_WARNING || failed === samples) return [];
+  const share = Number(((failed / samples) * 100).toPrecision(2));
+  return [
+    `${failed.toLocaleString('en')} of ${samples.toLocaleString('en')} samples (${share} %) failed to fly to the ground (${reasonsText(failures)}); the figures come from the landed samples only, so find the cause before relying on them`,
+  ];
+}
+
+/** For a run in which no sample landed: the message of exit 1, with the reasons counted. */
+export function allFailedMessage(summary: Pick<RunSummary, 'samples' | 'failures'>): string {
+  return `every one of the ${summary.samples.toLocaleString('en')} samples failed (${reasonsText(summary.failures)}); nothing was written. Check the scenario (strewn check) for the cause`;
+}
+
 export function buildRunSummary(
   scenario: Scenario,
   hash: string,
@@ -104,6 +125,7 @@ export function buildRunSummary(
   }
   if (farthest) farthest = { ...farthest, distance_m: round(farthest.distance_m, 2), bearing_deg: round(farthest.bearing_deg, 1) };
   const failedSamples = [...failures.values()].reduce((a, b) => a + b, 0);
+  const failureList = [...failures.entries()].sort((a, b) => a[0] - b[0]).map(([code, n]) => ({ reason: FAILURE_REASONS[code] ?? `code ${code}`, samples: n }));
   const parts: SummaryParts = analysis
     ? summaryParts(analysis)
     : { contours: [], keepOut: { level: scenario.run.keepOut.level, margin_m: scenario.run.keepOut.margin, area_m2: NaN, maxDistance_m: NaN, outsideShare: NaN, outsideUpper95: NaN }, areas: [], warnings: [] };
@@ -111,7 +133,7 @@ export function buildRunSummary(
     name: scenario.name,
     samples: run.count,
     failedSamples,
-    failures: [...failures.entries()].sort((a, b) => a[0] - b[0]).map(([code, n]) => ({ reason: FAILURE_REASONS[code] ?? `code ${code}`, samples: n })),
+    failures: failureList,
     seed: run.seed,
     scenarioHash: hash,
     version: VERSION,
@@ -127,6 +149,7 @@ export function buildRunSummary(
     })),
     ...operationPart(scenario),
     ...parts,
+    warnings: [...failureWarnings(run.count, failedSamples, failureList), ...parts.warnings],
     ...(sensitivity ? { sensitivity } : {}),
     ...nominalParts(scenario),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),

@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { isRecord } from './cross-checks.js';
 import { closestMatch, describeValue, unknownFieldMessage } from './errors.js';
 import { convertQuantity, siUnit, type Dimension, type Quantity } from './units.js';
+import { polygonShapeProblem } from './area-shape.js';
+import { NAME_CONTROL } from './safe-text.js';
 import { UNCERTAINTY_NAMES, type LineStringGeometry, type PolygonGeometry, type Spread, type UncertaintyName } from './types.js';
 
 /**
@@ -44,8 +46,11 @@ export interface Bounds {
 
 function boundsProblem(given: unknown, q: Quantity, dimension: Dimension, b: Bounds): string | undefined {
   const v = q.value;
-  const tooLow = (b.min !== undefined && v < b.min) || (b.above !== undefined && v <= b.above);
-  const tooHigh = (b.max !== undefined && v > b.max) || (b.below !== undefined && v >= b.below);
+  // Inclusive bounds allow for the rounding of a unit conversion: -100 C is 173.14999999999998 K
+  // in binary floating point, and must meet a bound of 173.15 K.
+  const slack = (bound: number) => 1e-12 * Math.max(1, Math.abs(bound));
+  const tooLow = (b.min !== undefined && v < b.min - slack(b.min)) || (b.above !== undefined && v <= b.above);
+  const tooHigh = (b.max !== undefined && v > b.max + slack(b.max)) || (b.below !== undefined && v >= b.below);
   if (!tooLow && !tooHigh) return undefined;
   const unit = siUnit(dimension) === '' ? '' : ` ${siUnit(dimension)}`;
   const lo = b.min ?? b.above;
@@ -94,6 +99,10 @@ export const NOT_NEGATIVE: Bounds = { min: 0 };
 
 export const text = (what: string) =>
   leaf((value): LeafResult<string> => {
+    if (typeof value === 'string' && NAME_CONTROL.test(value)) {
+      const code = NAME_CONTROL.exec(value)![0].codePointAt(0)!;
+      return fail(`${describeValue(value.replace(new RegExp(NAME_CONTROL.source, 'g'), '?'))} holds the control character U+${code.toString(16).toUpperCase().padStart(4, '0')}; names may hold only printable characters (and tabs or line breaks)`);
+    }
     if (typeof value === 'string' && value.trim() !== '') return ok(value);
     if (value === undefined) return fail(`missing (required); expected ${what}`);
     return fail(`${describeValue(value)} is ${typeof value === 'string' ? 'empty' : 'not text'}; expected ${what}`);
@@ -190,6 +199,8 @@ export const polygon = leaf((value): LeafResult<PolygonGeometry> => {
     }
   });
   if (problems.length > 0) return { ok: false, problems };
+  const shape = polygonShapeProblem(rings as number[][][]);
+  if (shape !== undefined) return fail(shape.message, ['coordinates', shape.ring]);
   return ok({ type: 'Polygon', coordinates: rings as number[][][] });
 });
 

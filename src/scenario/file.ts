@@ -1,9 +1,9 @@
-import { readFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { ScenarioError } from './errors.js';
 import { hashScenario } from './hash.js';
 import { parseJsonText } from './json-text.js';
 import { parseScenario } from './load.js';
+import { confineToFolder, InputFileError, readRegularFile, SIZE_LIMITS } from './open-file.js';
 import type { Issue, Scenario } from './types.js';
 
 /** Loading a scenario file in Node: the file system side of load.ts. */
@@ -11,6 +11,8 @@ import type { Issue, Scenario } from './types.js';
 export interface FileOptions {
   /** Highest `run.samples` accepted (default 10,000,000). */
   maxSamples?: number;
+  /** Let the scenario name files outside its own folder (`--allow-outside-files`). */
+  allowOutsideFiles?: boolean;
 }
 
 export interface LoadedScenario {
@@ -18,35 +20,44 @@ export interface LoadedScenario {
   warnings: Issue[];
   /** SHA-256 of the canonical normalised scenario (see hash.ts). */
   hash: string;
+  /** Every file read: the scenario and the files it names (a results folder must never hold them). */
+  inputFiles: string[];
 }
 
 /**
  * Reads, validates and normalises a scenario file; CSV thrust curves are read relative to the
- * file's folder. Every input problem (unreadable file, JSON syntax, invalid content) is thrown as
- * a `ScenarioError` whose heading names the file.
+ * file's folder, and only from that folder or below it unless `allowOutsideFiles`. Every input
+ * problem (unreadable file, JSON syntax, invalid content) is thrown as a `ScenarioError` whose
+ * heading names the file.
  */
 export function loadScenarioFile(path: string, options: FileOptions = {}): LoadedScenario {
-  const text = readText(path);
+  const text = readScenarioText(path);
   const json = parseJsonText(text, path);
+  const baseDir = dirname(path);
+  const inputFiles = [path];
+  const readCurve = (file: string): string => {
+    inputFiles.push(file);
+    confineToFolder(baseDir, file, options.allowOutsideFiles === true);
+    return readRegularFile(file, SIZE_LIMITS.thrustCsv);
+  };
   try {
     const { scenario, warnings } = parseScenario(json, {
-      baseDir: dirname(path),
-      readText,
+      baseDir,
+      readText: readCurve,
       maxSamples: options.maxSamples,
     });
-    return { scenario, warnings, hash: hashScenario(scenario) };
+    return { scenario, warnings, hash: hashScenario(scenario), inputFiles };
   } catch (error) {
     if (error instanceof ScenarioError) throw new ScenarioError(error.issues, `${path} has problems`);
     throw error;
   }
 }
 
-function readText(path: string): string {
+function readScenarioText(path: string): string {
   try {
-    return readFileSync(path, 'utf8');
+    return readRegularFile(path, SIZE_LIMITS.scenario);
   } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : error instanceof Error ? error.message : String(error);
+    const reason = error instanceof InputFileError ? error.message : error instanceof Error ? error.message : String(error);
     throw new ScenarioError([{ path, message: `cannot read the file: ${reason}` }], 'The scenario file cannot be read');
   }
 }

@@ -4,6 +4,7 @@ import { normalizeScenario } from './normalize.js';
 import { validateScenario, vehicleKindOf } from './schema.js';
 import { loadThrustCurve, type LoadedThrust } from './thrust.js';
 import { scenarioWarnings } from './warnings.js';
+import { rawJsonIssues } from './raw-guards.js';
 import type { Issue, Scenario } from './types.js';
 
 /**
@@ -29,6 +30,8 @@ export interface ParsedScenarioResult {
 /** Validates and normalises a scenario; throws `ScenarioError` listing every problem found. */
 export function parseScenario(json: unknown, options: ParseOptions = {}): ParsedScenarioResult {
   const validation = validateScenario(json, { maxSamples: options.maxSamples });
+  // A file built to break readers (reserved keys, absurd nesting) is not read any further.
+  if (rawJsonIssues(json).length > 0) throw new ScenarioError(validation.issues);
   const thrust = motorThrust(json, options);
   const issues = inFileOrder([...validation.issues, ...(thrust?.issues ?? [])]);
   if (issues.length > 0) throw new ScenarioError(issues);

@@ -32,6 +32,7 @@ import {
 } from './fields.js';
 import { shapeIssues } from './shape-checks.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
+import { rawJsonIssues } from './raw-guards.js';
 
 /**
  * The raw scenario file (format version 1) as zod schemas. Structure and types are checked by
@@ -42,6 +43,14 @@ import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
  */
 
 export const DEFAULT_MAX_SAMPLES = 10_000_000;
+/**
+ * Farthest a distance on the site may reach (minimum distance, keep-out margin, release offset):
+ * flights and zones are computed in a flat local frame that holds within a few hundred kilometres.
+ */
+export const MAX_SITE_DISTANCE = 500_000;
+const FLAT_FRAME_HINT = "Strewn's flat local frame holds only within a few hundred kilometres of the pad";
+/** Highest pad latitude, degrees north or south. */
+export const MAX_PAD_LATITUDE = 89.9;
 export const VEHICLE_KINDS: readonly VehicleKind[] = ['rocket', 'projectile', 'release'];
 export const TRIGGER_KINDS: readonly TriggerKind[] = ['apogee', 'altitude', 'time'];
 export const AREA_KINDS: readonly AreaKind[] = ['spectators', 'parking', 'road', 'building', 'water', 'other'];
@@ -69,11 +78,13 @@ function strict<S extends z.core.$ZodLooseShape>(shape: S): z.ZodType<z.output<z
 
 const siteSchema = strict({
   pad: strict({
-    lat: quantity('angle', { min: -90, max: 90 }),
+    // The local frame (src/analysis/geodesy.ts) is exact to 89.9°; nearer the pole every
+    // longitude meets, so the pad must stay 11 km or more from it.
+    lat: quantity('angle', { min: -MAX_PAD_LATITUDE, max: MAX_PAD_LATITUDE, hint: () => 'Strewn does not work within 0.1° (11 km) of a pole' }),
     lon: quantity('angle', { min: -180, max: 180 }),
     elevation: optionalQuantity('length'),
   }),
-  minimumDistance: optionalQuantity('length', NOT_NEGATIVE),
+  minimumDistance: optionalQuantity('length', { min: 0, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
   boundary: polygon.optional(),
   areas: z
     .array(
@@ -178,8 +189,8 @@ const releaseLaunchSchema = strict({
   speed: quantity('speed', NOT_NEGATIVE),
   // Required unless a path gives it (cross-checks).
   heading: optionalQuantity('angle'),
-  east: optionalQuantity('length'),
-  north: optionalQuantity('length'),
+  east: optionalQuantity('length', { min: -MAX_SITE_DISTANCE, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
+  north: optionalQuantity('length', { min: -MAX_SITE_DISTANCE, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
   path: lineString.optional(),
   area: polygon.optional(),
   duration: optionalQuantity('time', POSITIVE),
@@ -237,7 +248,7 @@ const runSchema = (cap: number) =>
     levels,
     keepOut: strict({
       level: optionalQuantity('fraction', { above: 0, below: 1 }),
-      margin: optionalQuantity('length', NOT_NEGATIVE),
+      margin: optionalQuantity('length', { min: 0, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
     }).optional(),
   });
 
@@ -302,6 +313,8 @@ export function validateScenario(json: unknown, options: ValidateOptions = {}): 
   if (!isRecord(json)) {
     return { issues: [{ path: '', message: `${describeValue(json)}; expected the scenario to be a JSON object {...}` }] };
   }
+  const guarded = rawJsonIssues(json);
+  if (guarded.length > 0) return { issues: guarded };
   const issues: Issue[] = [];
   const top = parseWith(topSchema(cap), json, [], issues);
   const body = parseBody(json.vehicle, json.launch, issues);

@@ -1,6 +1,7 @@
 import { descentRateForDragArea } from './normalize.js';
 import { formatNumber } from './units.js';
 import type { Issue, Scenario } from './types.js';
+import { plausibilityWarnings } from './plausibility.js';
 import { stabilityFigures } from '../physics/aero.js';
 
 /**
@@ -33,6 +34,7 @@ export const scenarioWarnings: ScenarioCheck = (scenario) => [
   ...surfaceWindWarnings(scenario),
   ...descentRateWarnings(scenario),
   ...shapeWarnings(scenario),
+  ...plausibilityWarnings(scenario),
 ];
 
 /** A rocket without a shape flies as a point mass; one with a shape gets its margin checked. */

@@ -53,7 +53,7 @@ function expectRefused(args: string[], named: RegExp[]): void {
 
 describe('strewn envelope', () => {
   it('writes envelope.json, .csv, .svg and a one-page envelope.pdf with the caution, every direction and the scenario hash', () => {
-    expect(readdirSync(envelopeDir).sort()).toEqual(['envelope.csv', 'envelope.json', 'envelope.pdf', 'envelope.svg']);
+    expect(readdirSync(envelopeDir).sort()).toEqual(['.strewn-results', 'envelope.csv', 'envelope.json', 'envelope.pdf', 'envelope.svg']);
     const json = JSON.parse(readFileSync(join(envelopeDir, 'envelope.json'), 'utf8'));
     expect(json.scenarioHash).toBe(scenarioHash);
     expect(json.computedAt).toBe('2024-06-01T12:00:00Z');

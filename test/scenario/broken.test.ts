@@ -55,7 +55,7 @@ const cases: BrokenCase[] = [
   { name: 'zero diameter', breakIt: (s) => void (s.vehicle.diameter = 0), path: 'vehicle.diameter', says: 'expected more than 0 m' },
   { name: 'negative rail', breakIt: (s) => void (s.launch.rail = '-1 m'), path: 'launch.rail', says: 'expected at least 0 m' },
   { name: 'tilt over 90', breakIt: (s) => void (s.launch.tilt = '95 deg'), path: 'launch.tilt', says: '95 deg is outside 0–90 deg' },
-  { name: 'pad latitude over 90', breakIt: (s) => void (s.site.pad.lat = 91), path: 'site.pad.lat', says: '91 deg is outside -90–90 deg' },
+  { name: 'pad latitude over 90', breakIt: (s) => void (s.site.pad.lat = 91), path: 'site.pad.lat', says: '91 deg is outside -89.9–89.9 deg; Strewn does not work within 0.1° (11 km) of a pole' },
   { name: 'pad longitude over 180', breakIt: (s) => void (s.site.pad.lon = 190), path: 'site.pad.lon', says: 'outside -180–180 deg' },
   { name: 'drag coefficient 0', breakIt: (s) => void (s.vehicle.drag = 0), path: 'vehicle.drag', says: 'expected a drag coefficient more than 0' },
   { name: 'drag table with Mach going down', breakIt: (s) => void (s.vehicle.drag = [[0, 0.4], [0.9, 0.5], [0.8, 0.6]]), path: 'vehicle.drag[2]', says: 'Mach 0.8 is not above' },

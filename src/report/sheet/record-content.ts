@@ -20,6 +20,7 @@ import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote }
 import { dateText } from './page-parts.js';
 import type { SheetInput } from './sheet-input.js';
 import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from './units.js';
+import { unprintableCount } from './winansi.js';
 
 export interface Column {
   title: string;
@@ -188,6 +189,27 @@ function trimLines(text: string, max: number): string {
   return lines.length <= max ? text : `${lines.slice(0, max).join('\n')} \u2026`;
 }
 
+/**
+ * The sheet's standard fonts carry only the Windows-1252 set; embedding fonts for every script
+ * (emoji, right-to-left text with its shaping) is left out, so the sheet says what it replaced.
+ */
+function replacedCharacterNote(input: SheetInput): string[] {
+  const sc = input.scenario;
+  const texts = [
+    sc.name,
+    sc.notes ?? '',
+    ...sc.site.areas.map((a) => a.name),
+    ...sc.recovery.map((r) => r.name),
+    ...sc.failures.map((f) => f.name),
+    ...input.summary.modes.map((m) => m.name),
+  ];
+  const count = texts.reduce((n, t) => n + unprintableCount(t), 0);
+  if (count === 0) return [];
+  return [
+    `${count} character${count === 1 ? '' : 's'} of the names and notes (such as emoji or right-to-left scripts) cannot be shown in this sheet's font and ${count === 1 ? 'is' : 'are'} printed as '?'; scenario.json and summary.json keep the names exactly`,
+  ];
+}
+
 export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: RecordLimits): Block[] {
   const { summary: s, scenario: sc, review } = input;
   const blocks: Block[] = [];
@@ -311,7 +333,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     blocks.push({ kind: 'text', font: 'italic', text: sensitivityNote(sensitivity.method, sensitivity.inputs.length - shown) });
   }
 
-  const warnings = [...s.warnings, ...s.scenarioWarnings];
+  const warnings = [...replacedCharacterNote(input), ...s.warnings, ...s.scenarioWarnings];
   if (warnings.length > 0) {
     blocks.push({ kind: 'heading', text: 'Warnings' });
     const shown = warnings.slice(0, limits.warnings);

@@ -8,6 +8,7 @@
 import type { Fill, PathCommand, Shape, Stroke, Tagged, Page, MarkersShape } from './display-list.js';
 import { markerOutline } from './display-list.js';
 import { SVG_FONTS } from './fonts.js';
+import { xmlCharacters } from '../../scenario/safe-text.js';
 
 function n(x: number): string {
   const r = Math.round(x * 100) / 100;
@@ -15,7 +16,7 @@ function n(x: number): string {
 }
 
 export function escapeXml(text: string): string {
-  return text.replace(/[<>&"']/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;', '"': '&quot;', "'": '&apos;' })[c]!);
+  return xmlCharacters(text).replace(/[<>&"']/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;', '"': '&quot;', "'": '&apos;' })[c]!);
 }
 
 function pathData(d: PathCommand[]): string {

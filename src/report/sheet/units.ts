@@ -36,6 +36,8 @@ function sig(x: number, digits = 3): string {
   const rounded = Number(x.toPrecision(digits));
   const magnitude = Math.floor(Math.log10(Math.abs(rounded)));
   const decimals = Math.max(0, digits - 1 - magnitude);
+  // Number formatting takes at most 100 decimals; far below any real value, say it in powers of ten.
+  if (decimals > 20) return rounded.toExponential(digits - 1).replace(/\.?0+e/, 'e');
   return rounded.toLocaleString('en', { minimumFractionDigits: 0, maximumFractionDigits: decimals });
 }
 

@@ -72,3 +72,10 @@ export function toWinAnsi(text: string): string {
   }
   return out;
 }
+
+/** How many characters of `text` toWinAnsi prints as '?' (no near equivalent in the set). */
+export function unprintableCount(text: string): number {
+  let count = 0;
+  for (const char of text) if (char !== '?' && toWinAnsi(char) === '?') count++;
+  return count;
+}
