@@ -77,8 +77,8 @@ const cases: BrokenCase[] = [
   { name: 'negative thrust', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, -5], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'thrust -5 N is negative' },
   { name: 'curve not starting at 0', breakIt: (s) => void (s.vehicle.motor.thrust = [[0.05, 10], [1, 0]]), path: 'vehicle.motor.thrust[0]', says: 'must start at t = 0' },
   { name: 'one-row curve', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 10]]), path: 'vehicle.motor.thrust', says: 'at least 2' },
-  { name: 'curve row that is not a pair', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time s, thrust N] pair' },
-  { name: 'curve with text in a row', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, 'NaN'], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time s, thrust N] pair' },
+  { name: 'curve row that is not a pair', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time, thrust] pair' },
+  { name: 'curve with text in a row', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, 'NaN'], [1, 0]]), path: 'vehicle.motor.thrust[1][1]', says: "'NaN' is not a number with a unit" },
   { name: 'curve with no impulse', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [1, 0]]), path: 'vehicle.motor.thrust', says: 'no impulse' },
   {
     name: 'curve over 100,000 rows',
