@@ -19,7 +19,7 @@ import type { TextMeasure } from './fonts.js';
 import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote } from './sensitivity-bars.js';
 import { dateText } from './page-parts.js';
 import type { SheetInput } from './sheet-input.js';
-import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from './units.js';
+import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from '../format-number.js';
 
 export interface Column {
   title: string;
