@@ -11,6 +11,7 @@ import { progressBar } from './progress.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
 import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
+import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
@@ -28,6 +29,9 @@ Options:
   --force           replace DIR if it is not empty
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
+  --units U         metric or imperial, for the printed summary and the sheet
+                    (default: the scenario's run.units, else metric)
+  --paper P         a4 or letter, for sheet.pdf (default: the scenario's run.paper, else a4)
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
   -h, --help        this help
 
@@ -35,7 +39,7 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
 export async function runCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' } });
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -48,9 +52,11 @@ export async function runCommand(args: string[]): Promise<number> {
   if (seedOption !== undefined && seedOption.length === 0) throw new UsageError('--seed: expected a non-empty text');
   const quiet = values.quiet === true;
   const json = values.json === true;
+  displayChoices(values);
 
   const loaded = loadForCommand(path, maxSamples);
   const scenario = loaded.scenario;
+  const { units, paper } = displayChoices(values, scenario.run);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
   const outDir = (values.out as string | undefined) ?? join('results', basename(path, extname(path)));
@@ -64,7 +70,7 @@ export async function runCommand(args: string[]): Promise<number> {
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
     bar.end();
     const { set, analysis, summary } = studyOutcome(scenario, loaded.hash, run, loaded.warnings);
-    for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
+    for (const [name, content] of buildResultFiles(scenario, set, analysis, summary, { units, paper })) out.write(name, content);
     // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
     // event loop: two turns (one is not enough) let it reach its handler; honour it before the
     // results appear.
@@ -72,7 +78,7 @@ export async function runCommand(args: string[]): Promise<number> {
     interrupt.signal.throwIfAborted();
     out.commit();
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
-    else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
+    else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination, units));
     return 0;
   } finally {
     bar.end();

@@ -9,11 +9,12 @@
  */
 import { MotorModel } from '../../physics/motor.js';
 import { AirModel } from '../../physics/air.js';
-import type { Scenario, Spread, UncertaintyName } from '../../scenario/types.js';
+import type { Scenario, UncertaintyName } from '../../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../../scenario/types.js';
 import { MIN_BAND_SAMPLES } from '../../analysis/confidence.js';
 import { bearingText } from './compass.js';
 import { SPREAD_WORDS } from './input-names.js';
+import { spreadAsFlown } from '../spread-text.js';
 import type { FontName, Shape } from './display-list.js';
 import type { TextMeasure } from './fonts.js';
 import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote } from './sensitivity-bars.js';
@@ -46,39 +47,6 @@ export interface RecordLimits {
   warnings: number;
   /** Most inputs drawn in "What drives the landing spread" (the rest is in summary.json). */
   sensitivityInputs: number;
-}
-
-/** An absolute spread value in the parameter's unit. */
-function spreadValue(name: UncertaintyName, x: number, u: UnitFormatter): string {
-  switch (name) {
-    case 'wind.speed':
-    case 'wind.gust':
-    case 'launch.speed':
-      return u.speed(x);
-    case 'wind.from':
-    case 'launch.tilt':
-    case 'launch.azimuth':
-    case 'launch.elevation':
-      return `${significant(x, 3)}\u00b0`;
-    case 'launch.height':
-      return u.shortLength(x);
-    case 'motor.impulse':
-      return u.impulse(x);
-    case 'vehicle.mass':
-      return u.mass(x);
-    case 'vehicle.drag':
-      return `Cd ${significant(x, 3)}`;
-    case 'recovery.delay':
-      return `${significant(x, 3)} s`;
-    case 'recovery.rate':
-      return `${significant(x * 100, 3)} %`;
-  }
-}
-
-export function spreadText(name: UncertaintyName, s: Spread, u: UnitFormatter): string {
-  const value = (x: number) => (s.relative ? `${significant(x * 100, 3)} %` : spreadValue(name, x, u));
-  if (s.kind === 'normal') return `normal, sd ${value(s.sd)}${s.limit !== undefined ? `, cut at ${significant(s.limit, 3)} sd` : ''}`;
-  return `uniform ${value(s.lo)} to ${value(s.hi)}`;
 }
 
 function vehicleText(sc: Scenario, u: UnitFormatter): string {
@@ -143,7 +111,7 @@ function airText(sc: Scenario, u: UnitFormatter): string {
 }
 
 function spreadsText(sc: Scenario, u: UnitFormatter): string {
-  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadText(n, sc.uncertainty[n]!, u)}`);
+  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadAsFlown(sc, n, sc.uncertainty[n]!, u)}`);
   return parts.length > 0 ? parts.join('; ') : 'none: every sample flies the nominal flight';
 }
 
