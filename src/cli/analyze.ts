@@ -10,6 +10,10 @@ import { writeKml } from '../analysis/kml.js';
 import { loadScenarioFile } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
 import { CAUTION } from '../report/caution.js';
+import { findingLines } from '../report/run-text.js';
+import { grouped, unitFormatter } from '../report/format-number.js';
+import { convertQuantity } from '../scenario/units.js';
+import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
@@ -27,7 +31,11 @@ Options:
   --scenario FILE       take the pad, boundary, areas, levels and keep-out settings from a scenario
   --levels P,P,…        probability levels (default 0.5,0.9,0.99 or the scenario's)
   --keep-out P          keep-out level (default 0.99 or the scenario's)
-  --margin M            keep-out margin in metres (default 25 or the scenario's)
+  --margin M            keep-out margin (default 25 m or the scenario's); a bare number is
+                        metres, or give a unit: '80 ft'
+  --units U             metric or imperial, for the printed summary and the sheet (default:
+                        the scenario's run.units, else metric)
+  --paper P             a4 or letter, for sheet.pdf (default: the scenario's run.paper, else a4)
   --out DIR             results folder (default: results/<file name>-analysis)
   --force               replace DIR if it is not empty
   --quiet               print nothing but errors
@@ -60,12 +68,14 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     force: { type: 'boolean' },
     quiet: { type: 'boolean' },
     json: { type: 'boolean' },
+    ...DISPLAY_OPTIONS,
   });
   if (values.help) {
     process.stdout.write(ANALYZE_HELP);
     return 0;
   }
   const path = onePositional('analyze', positionals, 'landings CSV file');
+  displayChoices(values);
   let site: Site;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
@@ -84,6 +94,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     const [lat, lon, elevation = site.pad.elevation] = numbers('pad', values.pad as string, [2, 3]);
     site = { ...site, pad: { lat, lon, elevation } };
   }
+  const { units, paper } = displayChoices(values, run);
   if (values.levels !== undefined) {
     const levels = numbers('levels', values.levels as string, [1, 20]).map((v) => probability('levels', v));
     if (levels.some((v, i) => i > 0 && v <= levels[i - 1])) throw new UsageError(`--levels: '${values.levels}' must increase`);
@@ -91,8 +102,11 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   if (values['keep-out'] !== undefined) run = { ...run, keepOut: { ...run.keepOut, level: probability('keep-out', numbers('keep-out', values['keep-out'] as string, [1, 1])[0]) } };
   if (values.margin !== undefined) {
-    const [margin] = numbers('margin', values.margin as string, [1, 1]);
-    if (margin < 0) throw new UsageError(`--margin: ${margin} m is negative`);
+    const text = (values.margin as string).trim();
+    const q = convertQuantity(/^[+-]?[\d.]+(e[+-]?\d+)?$/i.test(text) ? Number(text) : text, 'length');
+    if (!q.ok) throw new UsageError(`--margin: ${q.message}`);
+    const margin = q.value;
+    if (margin < 0) throw new UsageError(`--margin: ${q.shown} is negative`);
     run = { ...run, keepOut: { ...run.keepOut, margin } };
   }
 
@@ -132,11 +146,9 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     out.commit();
     if (values.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!values.quiet) {
-      const lines = [`${basename(path)}: ${set.east.length.toLocaleString('en')} landings`];
-      for (const c of summary.contours) lines.push(`  ${(c.level * 100).toFixed(0)} % region  ${Math.round(c.area_m2).toLocaleString('en')} m², reaches ${Math.round(c.maxDistance_m)} m from the pad`);
-      lines.push(`  keep-out zone ${Math.round(summary.keepOut.area_m2).toLocaleString('en')} m², reaches ${Math.round(summary.keepOut.maxDistance_m)} m`);
-      for (const w of summary.warnings) lines.push(`  warning       ${w}`);
-      lines.push(`  results       ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
+      const lines = [`${basename(path)}: ${grouped(set.east.length)} landings`];
+      lines.push(...findingLines(summary, unitFormatter(units)));
+      lines.push(`  results        ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
       process.stdout.write(lines.join('\n'));
     }
     return 0;
