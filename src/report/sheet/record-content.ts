@@ -9,6 +9,7 @@
  */
 import { MotorModel } from '../../physics/motor.js';
 import { AirModel } from '../../physics/air.js';
+import { descentRateForDragArea } from '../../scenario/normalize.js';
 import type { Scenario, UncertaintyName } from '../../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../../scenario/types.js';
 import { MIN_BAND_SAMPLES } from '../../analysis/confidence.js';
@@ -85,7 +86,13 @@ function recoveryText(sc: Scenario, u: UnitFormatter): string {
     .map((s, i) => {
       const when = s.trigger === 'apogee' ? 'at apogee' : s.trigger === 'altitude' ? `at ${u.length(s.altitude)} on the way down` : `${significant(s.time, 3)} s after launch`;
       const delay = s.delay > 0 ? ` + ${significant(s.delay, 3)} s` : '';
-      const rate = s.descentRate !== undefined ? `descent ${u.speed(s.descentRate)} at sea level` : `drag area ${u.smallArea(s.dragArea)}`;
+      const seaLevel = descentRateForDragArea(sc.vehicle.mass, s.dragArea);
+      const rate =
+        s.descentRate !== undefined
+          ? `descent ${u.descentRate(s.descentRate)} at sea level`
+          : s.canopy
+            ? `canopy ${u.diameter(s.canopy.diameter)} across, Cd ${significant(s.canopy.drag, 3)}${s.canopy.note ? ` (${s.canopy.note})` : ''}, descent ${u.descentRate(seaLevel)} at sea level`
+            : `drag area ${u.smallArea(s.dragArea)}, descent ${u.descentRate(seaLevel)} at sea level`;
       return `${i + 1}. ${s.name}: ${when}${delay}, ${rate}`;
     })
     .join('\n');
