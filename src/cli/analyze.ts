@@ -14,6 +14,11 @@ import { findingLines } from '../report/run-text.js';
 import { grouped, unitFormatter } from '../report/format-number.js';
 import { convertQuantity } from '../scenario/units.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
+import { scenarioHash } from '../scenario/hash.js';
+import type { Scenario } from '../scenario/types.js';
+import { reviewFacts, runDate } from '../report/sheet/review-facts.js';
+import { sheetInputFromTexts } from '../report/sheet/sheet-input.js';
+import { buildSheet } from '../report/sheet/index.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
@@ -36,6 +41,9 @@ Options:
   --units U             metric or imperial, for the printed summary and the sheet (default:
                         the scenario's run.units, else metric)
   --paper P             a4 or letter, for sheet.pdf (default: the scenario's run.paper, else a4)
+
+With --scenario the folder also holds scenario.json, review.json, sheet.pdf and map.svg, and
+strewn sheet redraws them; without it there is no site or input record to draw a sheet from.
   --out DIR             results folder (default: results/<file name>-analysis)
   --force               replace DIR if it is not empty
   --quiet               print nothing but errors
@@ -77,11 +85,15 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   const path = onePositional('analyze', positionals, 'landings CSV file');
   displayChoices(values);
   let site: Site;
+  let scenario: Scenario | undefined;
+  let scenarioHashText: string | undefined;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
     const loaded = loadScenarioFile(values.scenario as string);
     site = loaded.scenario.site;
     run = loaded.scenario.run;
+    scenario = loaded.scenario;
+    scenarioHashText = loaded.hash;
   } else if (values.pad !== undefined) {
     const [lat, lon, elevation = 0] = numbers('pad', values.pad as string, [2, 3]);
     if (Math.abs(lat) > 90) throw new UsageError(`--pad: latitude ${lat} is outside −90 to 90`);
@@ -128,18 +140,45 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), values.force === true);
   try {
     const analysis = analyze(set, site, run);
+    const counts = set.modeNames.map((_, m) => set.mode.filter((x) => x === m).length);
+    const noFlight = { mean: null, p05: null, p50: null, p95: null, max: null };
+    // The fields a run's summary has, so that `strewn sheet` reads this folder too; nothing was
+    // flown here, so the flight figures are null and the seed says the landings were recorded.
     const summary = {
+      name: scenario ? `${scenario.name}: landings recorded in ${basename(path)}` : `Landings recorded in ${basename(path)}`,
       source: basename(path),
       landings: set.east.length,
+      samples: set.east.length,
+      failedSamples: 0,
+      failures: [],
+      seed: 'none (recorded landings)',
+      scenarioHash: scenarioHashText ?? scenarioHash(text),
       version: VERSION,
       pad: site.pad,
-      modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: set.mode.filter((x) => x === m).length })),
+      apogee_m: noFlight,
+      flightTime_s: noFlight,
+      farthestLanding: null,
+      modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: counts[m], samples: counts[m], landed: counts[m] })),
       ...summaryParts(analysis),
+      scenarioWarnings: [],
       caution: CAUTION,
     };
-    out.write('summary.json', JSON.stringify(summary, null, 2) + '\n');
-    out.write('contours.geojson', writeContoursGeoJSON(analysis));
-    out.write('keepout.geojson', writeKeepOutGeoJSON(analysis));
+    const summaryText = JSON.stringify(summary, null, 2) + '\n';
+    const contoursText = writeContoursGeoJSON(analysis);
+    const keepOutText = writeKeepOutGeoJSON(analysis);
+    out.write('summary.json', summaryText);
+    out.write('contours.geojson', contoursText);
+    out.write('keepout.geojson', keepOutText);
+    if (scenario) {
+      // With the scenario, the folder holds what the review sheet is drawn from, and the sheet.
+      const scenarioText = JSON.stringify(scenario, null, 2) + '\n';
+      const reviewText = JSON.stringify(reviewFacts(analysis, runDate()), null, 2) + '\n';
+      out.write('scenario.json', scenarioText);
+      out.write('review.json', reviewText);
+      const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), { units, paper });
+      out.write('map.svg', sheet.svg);
+      out.write('sheet.pdf', sheet.pdf);
+    }
     out.write('landings.geojson', landingsGeoJSONChunks(set, site.pad));
     if (site.areas.length > 0) out.write('areas.csv', writeAreasCsv(analysis.areas));
     out.write('result.kml', writeKml(analysis, site, `Landings from ${basename(path)}`));

@@ -78,13 +78,13 @@ function ends(spread: Spread): { lo: number; hi: number; note: string } {
 }
 
 /** What the nominal is called where a spread acts on more than one value. */
-function nominalWords(sc: Scenario, name: UncertaintyName, u: UnitFormatter): string | undefined {
-  if (name === 'recovery.delay' && sc.recovery.length > 1) return `each stage's delay (${sc.recovery.map((s) => `${s.name} ${significant(s.delay, 3)} s`).join(', ')})`;
+function nominalWords(sc: Scenario, name: UncertaintyName, u: UnitFormatter, compact: boolean): string | undefined {
+  if (name === 'recovery.delay' && sc.recovery.length > 1) return compact ? "each stage's delay" : `each stage's delay (${sc.recovery.map((s) => `${s.name} ${significant(s.delay, 3)} s`).join(', ')})`;
   if (name === 'recovery.rate' && sc.recovery.length > 0) {
     const last = sc.recovery[sc.recovery.length - 1]!;
-    return `${last.name} ${u.descentRate(nominalValue(sc, name))} at sea level (every stage's rate scales alike)`;
+    return `${last.name} ${u.descentRate(nominalValue(sc, name))}${compact ? '' : " at sea level (every stage's rate scales alike)"}`;
   }
-  if (name === 'vehicle.drag' && sc.vehicle.drag.cd.length > 1) return `Cd ${significant(sc.vehicle.drag.cd[0]!, 3)} at Mach ${significant(sc.vehicle.drag.mach[0]!, 2)} (the whole table scales alike)`;
+  if (name === 'vehicle.drag' && sc.vehicle.drag.cd.length > 1) return `Cd ${significant(sc.vehicle.drag.cd[0]!, 3)} at Mach ${significant(sc.vehicle.drag.mach[0]!, 2)}${compact ? '' : ' (the whole table scales alike)'}`;
   return undefined;
 }
 
@@ -92,12 +92,17 @@ function nominalWords(sc: Scenario, name: UncertaintyName, u: UnitFormatter): st
  * One spread as flown: "130 ft, −30 to +30 ft → 100–160 ft", "250°, sd 12°; ±2 sd → 226°–274°",
  * "1.2 kg, sd 2 %; ±2 sd → 1.15–1.25 kg".
  */
-export function spreadAsFlown(sc: Scenario, name: UncertaintyName, spread: Spread, u: UnitFormatter): string {
+export function spreadAsFlown(sc: Scenario, name: UncertaintyName, spread: Spread, u: UnitFormatter, options: { compact?: boolean } = {}): string {
+  const compact = options.compact === true;
   const nominal = nominalValue(sc, name);
   const scale = spread.relative ? Math.abs(nominal) : 1;
-  const { lo, hi, note } = ends(spread);
+  const ends_ = ends(spread);
+  const { lo, hi } = ends_;
+  // Compact (the sheet): the ±2 sd rule is said once for the whole list, not on every spread.
+  const note = compact ? '' : ends_.note;
   const given = spread.kind === 'uniform' ? span(offsetText(name, spread.lo, spread, u), offsetText(name, spread.hi, spread, u), ' to ') : `sd ${offsetText(name, spread.sd, spread, u).replace(/^\+/, '')}`;
-  const nominalText = nominalWords(sc, name, u) ?? valueIn(name, nominal, u);
+  const nominalText = nominalWords(sc, name, u, compact) ?? valueIn(name, nominal, u);
+  if (name === 'recovery.delay' && sc.recovery.length > 1 && compact) return `${nominalText}, ${given}`;
   if (name === 'recovery.delay' && sc.recovery.length > 1) {
     const flown = sc.recovery.map((s) => `${s.name} ${span(valueIn(name, Math.max(0, s.delay + lo * scale), u), valueIn(name, Math.max(0, s.delay + hi * scale), u))}`).join(', ');
     return `${nominalText}, ${given}${note} → ${flown}`;

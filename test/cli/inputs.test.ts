@@ -150,3 +150,29 @@ describe('check prints descent rates at the pad', () => {
   });
 });
 
+
+describe('sheet on a folder written by analyze', () => {
+  it('analyze with --scenario writes the sheet, prints area chances like run, and strewn sheet redraws it', () => {
+    const dir = tempDir();
+    const scenario = join(dir, 'r.json');
+    writeFileSync(scenario, JSON.stringify(starterScenario('rocket', 'metric')));
+    expect(strewn(['run', scenario, '--samples', '200', '--workers', '1', '--out', join(dir, 'run'), '--quiet']).status).toBe(0);
+    const a = strewn(['analyze', join(dir, 'run', 'landings.csv'), '--scenario', scenario, '--out', join(dir, 'an'), '--units', 'imperial']);
+    expect(a.status, a.stderr).toBe(0);
+    expect(a.stdout).toMatch(/area {11}Spectators \(spectators\): \d+ hits?, chance per flight [\d.]+ %, 95 % upper bound [\d.]+ %/);
+    expect(a.stdout).toMatch(/reaches [\d,]+ ft from the pad/);
+    const s = strewn(['sheet', join(dir, 'an')]);
+    expect(s.status, s.stderr).toBe(0);
+    expect(pdfText(join(dir, 'an', 'sheet.pdf'))).toContain('landings recorded in landings.csv');
+  });
+
+  it('without --scenario, strewn sheet says why it cannot draw one', () => {
+    const dir = tempDir();
+    const csv = join(dir, 'l.csv');
+    writeFileSync(csv, 'east_m,north_m\n' + Array.from({ length: 60 }, (_, i) => `${(i % 7) * 3},${Math.floor(i / 7) * 4}`).join('\n'));
+    expect(strewn(['analyze', csv, '--pad', '47.3,8.0', '--out', join(dir, 'an'), '--quiet']).status).toBe(0);
+    const s = strewn(['sheet', join(dir, 'an')]);
+    expect(s.status).toBe(2);
+    expect(s.stderr).toContain('written by strewn analyze without --scenario');
+  });
+});

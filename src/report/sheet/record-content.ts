@@ -118,8 +118,10 @@ function airText(sc: Scenario, u: UnitFormatter): string {
 }
 
 function spreadsText(sc: Scenario, u: UnitFormatter): string {
-  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadAsFlown(sc, n, sc.uncertainty[n]!, u)}`);
-  return parts.length > 0 ? parts.join('; ') : 'none: every sample flies the nominal flight';
+  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadAsFlown(sc, n, sc.uncertainty[n]!, u, { compact: true })}`);
+  if (parts.length === 0) return 'none: every sample flies the nominal flight';
+  const normal = UNCERTAINTY_NAMES.some((n) => sc.uncertainty[n]?.kind === 'normal');
+  return `${parts.join('; ')}${normal ? ' (after \u2192: values flown; ±2 sd for normal spreads)' : ''}`;
 }
 
 function failuresText(sc: Scenario): string {
