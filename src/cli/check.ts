@@ -8,6 +8,7 @@ import { inputWords } from '../report/sheet/input-names.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
+import { nominalFigureLines, nominalFigures } from '../report/stability.js';
 
 export const CHECK_HELP = `Usage: strewn check <scenario.json> [--units metric|imperial] [--max-samples N]
 
@@ -48,6 +49,7 @@ export async function checkCommand(args: string[]): Promise<number> {
   const lines = [`scenario '${sc.name}' is valid (hash ${loaded.hash.slice(0, 12)}); nominal flight: apogee ${u.length(n.apogee)}, ${status}`];
   lines.push(...spreadLines(sc, u), ...descentLines(sc, u, air.densityAt(0)));
   process.stderr.write(lines.join('\n') + '\n');
+  for (const line of nominalFigureLines(nominalFigures(sc, n))) process.stderr.write(`${line}\n`);
   printWarnings(loaded.warnings);
   return 0;
 }

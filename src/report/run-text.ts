@@ -4,7 +4,7 @@ import { CAUTION } from './caution.js';
 import { grouped, levelText, percent, unitFormatter, type UnitFormatter, type UnitSystem } from './format-number.js';
 
 /** Contour, keep-out zone and area lines, the same for `run` and `analyze`. */
-export function findingLines(parts: SummaryParts, u: UnitFormatter): string[] {
+export function findingLines(parts: SummaryParts, u: UnitFormatter, withWarnings = true): string[] {
   const lines: string[] = [];
   for (const c of parts.contours) lines.push(`  ${`${levelText(c.level)} region`.padEnd(15)}${u.area(c.area_m2)}, reaches ${u.length(c.maxDistance_m)} from the pad`);
   if (Number.isFinite(parts.keepOut.area_m2)) {
@@ -14,7 +14,7 @@ export function findingLines(parts: SummaryParts, u: UnitFormatter): string[] {
     const hits = `${grouped(a.hits)} ${a.hits === 1 ? 'hit' : 'hits'}`;
     lines.push(`  area           ${a.name} (${a.kind}): ${hits}, chance per flight ${percent(a.probability)}, 95 % upper bound ${percent(a.upper95)}`);
   }
-  for (const w of parts.warnings) lines.push(`  warning        ${w}`);
+  if (withWarnings) for (const w of parts.warnings) lines.push(`  warning        ${w}`);
   return lines;
 }
 
@@ -23,6 +23,8 @@ export function formatRunSummary(s: RunSummary, folder: string, units: UnitSyste
   const u = unitFormatter(units);
   const lines: string[] = [];
   lines.push(`${s.name}`);
+  // Warnings first, where people read: a summary that scrolls past them hides them.
+  for (const w of s.warnings) lines.push(`  warning        ${w}`);
   lines.push(`  samples        ${grouped(s.samples)} (seed ${s.seed})${s.failedSamples > 0 ? `, ${grouped(s.failedSamples)} failed` : ', none failed'}`);
   for (const f of s.failures) lines.push(`                 ${grouped(f.samples)} ${f.reason}`);
   for (const m of s.modes) if (m.name !== 'nominal' || s.modes.length > 1) lines.push(`  mode           ${m.name}: probability ${percent(m.probability)}, ${grouped(m.samples)} samples`);
@@ -31,7 +33,7 @@ export function formatRunSummary(s: RunSummary, folder: string, units: UnitSyste
     const f = s.farthestLanding;
     lines.push(`  farthest       ${u.length(f.distance_m)} from the pad, bearing ${f.bearing_deg.toFixed(0)}° (sample ${f.sample}, ${f.mode})`);
   }
-  lines.push(...findingLines(s, u));
+  lines.push(...findingLines(s, u, false));
   lines.push(`  results        ${folder}`);
   lines.push('');
   lines.push(`CAUTION: ${CAUTION}`);

@@ -28,7 +28,10 @@ function valueIn(name: UncertaintyName, x: number, u: UnitFormatter): string {
       return `${significant(normalizeDirection(x), 3)}\u00b0`;
     case 'launch.tilt':
     case 'launch.elevation':
+    case 'motor.misalignment':
       return `${significant(x, 3)}\u00b0`;
+    case 'vehicle.cg':
+      return u.shortLength(x);
     case 'launch.height':
       return u.shortLength(x);
     case 'motor.impulse':
