@@ -11,6 +11,15 @@ import { loadScenarioFile } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
 import { MAX_PAD_LATITUDE } from '../scenario/schema.js';
 import { CAUTION } from '../report/caution.js';
+import { findingLines } from '../report/run-text.js';
+import { grouped, unitFormatter } from '../report/format-number.js';
+import { convertQuantity } from '../scenario/units.js';
+import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
+import { scenarioHash } from '../scenario/hash.js';
+import type { Scenario } from '../scenario/types.js';
+import { reviewFacts, runDate } from '../report/sheet/review-facts.js';
+import { sheetInputFromTexts } from '../report/sheet/sheet-input.js';
+import { buildSheet } from '../report/sheet/index.js';
 import { VERSION } from '../version.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
@@ -28,7 +37,14 @@ Options:
   --scenario FILE       take the pad, boundary, areas, levels and keep-out settings from a scenario
   --levels P,P,…        probability levels (default 0.5,0.9,0.99 or the scenario's)
   --keep-out P          keep-out level (default 0.99 or the scenario's)
-  --margin M            keep-out margin in metres (default 25 or the scenario's)
+  --margin M            keep-out margin (default 25 m or the scenario's); a bare number is
+                        metres, or give a unit: '80 ft'
+  --units U             metric or imperial, for the printed summary and the sheet (default:
+                        the scenario's run.units, else metric)
+  --paper P             a4 or letter, for sheet.pdf (default: the scenario's run.paper, else a4)
+
+With --scenario the folder also holds scenario.json, review.json, sheet.pdf and map.svg, and
+strewn sheet redraws them; without it there is no site or input record to draw a sheet from.
   --out DIR             results folder (default: results/<file name>-analysis)
   --force               replace DIR if strewn wrote it (never a folder holding the input)
   --allow-outside-files the scenario may name files outside its own folder
@@ -72,20 +88,26 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     quiet: { type: 'boolean' },
     json: { type: 'boolean' },
     'allow-outside-files': { type: 'boolean' },
+    ...DISPLAY_OPTIONS,
   });
   if (values.help) {
     process.stdout.write(ANALYZE_HELP);
     return 0;
   }
   const path = onePositional('analyze', positionals, 'landings CSV file');
+  displayChoices(values);
   let site: Site;
   const inputs = [path];
+  let scenario: Scenario | undefined;
+  let scenarioHashText: string | undefined;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
     const loaded = loadScenarioFile(values.scenario as string, { allowOutsideFiles: values['allow-outside-files'] === true });
     inputs.push(...loaded.inputFiles);
     site = loaded.scenario.site;
     run = loaded.scenario.run;
+    scenario = loaded.scenario;
+    scenarioHashText = loaded.hash;
   } else if (values.pad !== undefined) {
     site = { pad: padOption(values.pad as string, 0), areas: [] };
   } else {
@@ -94,6 +116,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   if (values.pad !== undefined && values.scenario !== undefined) {
     site = { ...site, pad: padOption(values.pad as string, site.pad.elevation) };
   }
+  const { units, paper } = displayChoices(values, run);
   if (values.levels !== undefined) {
     const levels = numbers('levels', values.levels as string, [1, 20]).map((v) => probability('levels', v));
     if (levels.some((v, i) => i > 0 && v <= levels[i - 1])) throw new UsageError(`--levels: '${values.levels}' must increase`);
@@ -101,8 +124,11 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   if (values['keep-out'] !== undefined) run = { ...run, keepOut: { ...run.keepOut, level: probability('keep-out', numbers('keep-out', values['keep-out'] as string, [1, 1])[0]) } };
   if (values.margin !== undefined) {
-    const [margin] = numbers('margin', values.margin as string, [1, 1]);
-    if (margin < 0) throw new UsageError(`--margin: ${margin} m is negative`);
+    const text = (values.margin as string).trim();
+    const q = convertQuantity(/^[+-]?[\d.]+(e[+-]?\d+)?$/i.test(text) ? Number(text) : text, 'length');
+    if (!q.ok) throw new UsageError(`--margin: ${q.message}`);
+    const margin = q.value;
+    if (margin < 0) throw new UsageError(`--margin: ${q.shown} is negative`);
     run = { ...run, keepOut: { ...run.keepOut, margin } };
   }
 
@@ -124,29 +150,54 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), { force: values.force === true, inputs, say: values.quiet === true || values.json === true ? () => {} : undefined });
   try {
     const analysis = analyze(set, site, run);
+    const counts = set.modeNames.map((_, m) => set.mode.filter((x) => x === m).length);
+    const noFlight = { mean: null, p05: null, p50: null, p95: null, max: null };
+    // The fields a run's summary has, so that `strewn sheet` reads this folder too; nothing was
+    // flown here, so the flight figures are null and the seed says the landings were recorded.
     const summary = {
+      name: scenario ? `${scenario.name}: landings recorded in ${basename(path)}` : `Landings recorded in ${basename(path)}`,
       source: basename(path),
       landings: set.east.length,
+      samples: set.east.length,
+      failedSamples: 0,
+      failures: [],
+      seed: 'none (recorded landings)',
+      scenarioHash: scenarioHashText ?? scenarioHash(text),
       version: VERSION,
       pad: site.pad,
-      modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: set.mode.filter((x) => x === m).length })),
+      apogee_m: noFlight,
+      flightTime_s: noFlight,
+      farthestLanding: null,
+      modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: counts[m], samples: counts[m], landed: counts[m] })),
       ...summaryParts(analysis),
+      scenarioWarnings: [],
       caution: CAUTION,
     };
-    out.write('summary.json', JSON.stringify(summary, null, 2) + '\n');
-    out.write('contours.geojson', writeContoursGeoJSON(analysis));
-    out.write('keepout.geojson', writeKeepOutGeoJSON(analysis));
+    const summaryText = JSON.stringify(summary, null, 2) + '\n';
+    const contoursText = writeContoursGeoJSON(analysis);
+    const keepOutText = writeKeepOutGeoJSON(analysis);
+    out.write('summary.json', summaryText);
+    out.write('contours.geojson', contoursText);
+    out.write('keepout.geojson', keepOutText);
+    if (scenario) {
+      // With the scenario, the folder holds what the review sheet is drawn from, and the sheet.
+      const scenarioText = JSON.stringify(scenario, null, 2) + '\n';
+      const reviewText = JSON.stringify(reviewFacts(analysis, runDate()), null, 2) + '\n';
+      out.write('scenario.json', scenarioText);
+      out.write('review.json', reviewText);
+      const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), { units, paper });
+      out.write('map.svg', sheet.svg);
+      out.write('sheet.pdf', sheet.pdf);
+    }
     out.write('landings.geojson', landingsGeoJSONChunks(set, site.pad));
     if (site.areas.length > 0) out.write('areas.csv', writeAreasCsv(analysis.areas));
     out.write('result.kml', writeKml(analysis, site, `Landings from ${basename(path)}`));
     out.commit();
     if (values.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!values.quiet) {
-      const lines = [`${basename(path)}: ${set.east.length.toLocaleString('en')} landings`];
-      for (const c of summary.contours) lines.push(`  ${(c.level * 100).toFixed(0)} % region  ${Math.round(c.area_m2).toLocaleString('en')} m², reaches ${Math.round(c.maxDistance_m)} m from the pad`);
-      lines.push(`  keep-out zone ${Math.round(summary.keepOut.area_m2).toLocaleString('en')} m², reaches ${Math.round(summary.keepOut.maxDistance_m)} m`);
-      for (const w of summary.warnings) lines.push(`  warning       ${w}`);
-      lines.push(`  results       ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
+      const lines = [`${basename(path)}: ${grouped(set.east.length)} landings`];
+      lines.push(...findingLines(summary, unitFormatter(units)));
+      lines.push(`  results        ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
       process.stdout.write(lines.join('\n'));
     }
     return 0;

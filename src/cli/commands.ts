@@ -13,6 +13,7 @@ export const COMMANDS: Record<string, Command> = {
   analyze: { summary: 'draw contours, the keep-out zone and area figures from landing points recorded elsewhere', run: async (args) => (await import('./analyze.js')).analyzeCommand(args) },
   check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', run: async (args) => (await import('./check.js')).checkCommand(args) },
   sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', run: async (args) => (await import('./sheet.js')).sheetCommand(args) },
+  new: { summary: 'write a starting scenario for a rocket, projectile or release, in metric or imperial units', run: async (args) => (await import('./new.js')).newCommand(args) },
   merge: { summary: 'put the shards of a study (strewn run --shard K/N) together into one results folder', run: async (args) => (await import('./merge.js')).mergeCommand(args) },
   event: { summary: 'fly every item of an event plan and add up zones, landings and casualties for the whole event', run: async (args) => (await import('./event.js')).eventCommand(args) },
   compare: { summary: 'compare two results folders: zone area and reach, area chances and expected casualties, both zones on one map', run: async (args) => (await import('./compare.js')).compareCommand(args) },

@@ -3,7 +3,10 @@ import { runInPool } from '../pool/pool.js';
 import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
 import { reusableWorkers } from '../pool/reuse.js';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
-import { rangeValues } from '../envelope/grid.js';
+import { rangeFrom, rangeValues } from '../envelope/grid.js';
+import { convertQuantity } from '../scenario/units.js';
+import { unitFormatter, type UnitFormatter } from '../report/format-number.js';
+import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 import { windEnvelope } from '../envelope/envelope.js';
 import type { Aim } from '../envelope/aim.js';
 import type { Scenario } from '../scenario/types.js';
@@ -32,7 +35,9 @@ adds the same page to a run's review sheet).
 
 Options:
   --directions A:B:S  wind directions in degrees, start:stop:step (default 0:330:30)
-  --speeds A:B:S      mean wind speeds in m/s at the reference height (default 0:14:1)
+  --speeds A:B:S      mean wind speeds at the reference height (default 0:14:1 m/s); each
+                      part may carry a unit ("0 mph:30 mph:2 mph"), or one unit at the end
+                      applies to all ("0:30:2 mph"); bare numbers are m/s
   --samples N         samples per grid point (default: the scenario's run.samples)
   --seed S            random seed (default: the scenario's run.seed)
   --workers W         worker threads (default: the number of CPU cores)
@@ -41,8 +46,9 @@ Options:
                       away-from=AREA (away from the named area's centre); default: fixed, uncapped
   --max-tilt DEG      largest lean from vertical with --aim (default 20, common practice)
   --exhaustive        fly every grid point instead of bisecting each direction's speeds
-  --units U           metric or imperial, for the chart and the page (default metric)
-  --paper P           a4 or letter, for envelope.pdf (default a4)
+  --units U           metric or imperial, for the text, the chart and the page (default: the
+                      scenario's run.units, else metric)
+  --paper P           a4 or letter, for envelope.pdf (default: the scenario's run.paper, else a4)
   --out DIR           results folder (default: results/<scenario file name>-envelope)
   --force             replace DIR if strewn wrote it (never a folder holding the scenario)
   --allow-outside-files  let the scenario name files outside its own folder
@@ -65,8 +71,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     exhaustive: { type: 'boolean' },
     aim: { type: 'string' },
     'max-tilt': { type: 'string' },
-    units: { type: 'string' },
-    paper: { type: 'string' },
+    ...DISPLAY_OPTIONS,
   });
   if (values.help) {
     process.stdout.write(ENVELOPE_HELP);
@@ -75,24 +80,26 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const path = onePositional('envelope', positionals, 'scenario file');
   const directions = grid('directions', (values.directions as string | undefined) ?? '0:330:30');
   if (directions.some((d) => d >= 360)) throw new UsageError(`--directions: ${directions[directions.length - 1]} is 360° or more; expected directions below 360`);
-  const speeds = grid('speeds', (values.speeds as string | undefined) ?? '0:14:1');
+  const speedGrid = parseSpeedGrid((values.speeds as string | undefined) ?? '0:14:1');
+  const speeds = speedGrid.speeds;
   if (speeds[0] < 0) throw new UsageError(`--speeds: ${speeds[0]} m/s is negative`);
   const samplesOption = integerOption('samples', values.samples as string | undefined, 10, DEFAULT_MAX_SAMPLES);
   const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
-  const units = (values.units as string | undefined) ?? 'metric';
-  if (units !== 'metric' && units !== 'imperial') throw new UsageError(`--units: '${units}'; expected metric or imperial`);
-  const paper = (values.paper as string | undefined) ?? 'a4';
-  if (paper !== 'a4' && paper !== 'letter') throw new UsageError(`--paper: '${paper}'; expected a4 or letter`);
+  displayChoices(values);
   const quiet = values.quiet === true;
   const json = values.json === true;
 
   const loaded = loadForCommand(path, undefined, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const aim = aimOption(values.aim as string | undefined, values['max-tilt'] as string | undefined, scenario);
+  const { units, paper } = displayChoices(values, scenario.run);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = (values.seed as string | undefined) ?? scenario.run.seed;
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-envelope`), { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
-  if (!quiet && !json) printWarnings(loaded.warnings);
+  if (!quiet && !json) {
+    printWarnings(loaded.warnings);
+    if (speedGrid.note !== undefined && values.speeds !== undefined) process.stderr.write(`note: ${speedGrid.note}\n`);
+  }
 
   const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
@@ -121,7 +128,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     out.write('envelope.pdf', envelopePdf({ envelope: result, scenarioHash: loaded.hash, version: VERSION, computedAt }, { paper, units }));
     out.commit();
     if (json) process.stdout.write(JSON.stringify({ ...extra, limits: result.limits.map(({ cases: _c, ...d }) => d) }, null, 2) + '\n');
-    else if (!quiet) process.stdout.write(formatEnvelope(result, out.destination));
+    else if (!quiet) process.stdout.write(formatEnvelope(result, out.destination, unitFormatter(units)));
     return 0;
   } finally {
     keeper.close();
@@ -156,14 +163,40 @@ function aimOption(text: string | undefined, maxTiltText: string | undefined, sc
   return { mode, area, maxTilt };
 }
 
-function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string): string {
+/**
+ * --speeds: "start:stop:step" with a speed unit on each part, on the last part only (then for
+ * all), or on none (m/s, and a note says so). Values are converted with the scenario's unit table.
+ */
+export function parseSpeedGrid(text: string): { speeds: number[]; note?: string } {
+  const parts = text.split(':').map((p) => p.trim());
+  if (parts.length !== 3) throw new UsageError(`--speeds: '${text}' is not start:stop:step`);
+  const hasUnit = parts.map((p) => /[a-z/]/i.test(p.replace(/e[+-]?\d+$/i, '')));
+  let written = parts;
+  if (!hasUnit[0] && !hasUnit[1] && hasUnit[2]) {
+    const unit = /^[+-]?[\d.]+(?:e[+-]?\d+)?\s*(.*)$/i.exec(parts[2]!)?.[1] ?? '';
+    written = [`${parts[0]} ${unit}`, `${parts[1]} ${unit}`, parts[2]!];
+  } else if (hasUnit.some((h) => h) && !hasUnit.every((h) => h)) {
+    throw new UsageError(`--speeds: '${text}' has a unit on some parts only; write it on every part ("0 mph:30 mph:2 mph"), once at the end ("0:30:2 mph"), or on none (m/s)`);
+  }
+  const anyUnit = hasUnit.some((h) => h);
+  const si = written.map((p) => {
+    const q = convertQuantity(anyUnit ? p : Number(p), 'speed');
+    if (!q.ok) throw new UsageError(`--speeds: '${p}': ${q.message}`);
+    return q.value;
+  });
+  const speeds = rangeFrom(si[0]!, si[1]!, si[2]!, text);
+  if (typeof speeds === 'string') throw new UsageError(`--speeds: ${speeds}`);
+  return anyUnit ? { speeds } : { speeds, note: `--speeds '${text}' has no unit, so it was read in m/s (write e.g. '0:30:2 mph' for another unit)` };
+}
+
+function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string, u: UnitFormatter): string {
   const lines = [`${e.name}: wind limits (${e.samples.toLocaleString('en')} samples per point, ${e.casesFlown} points flown in ${e.elapsed_s.toFixed(1)} s)`];
   for (const d of e.limits) {
-    const limit = d.limit === null ? `fails already at ${e.speeds[0]} m/s` : `${d.aboveGrid ? 'at least ' : 'up to '}${d.limit} m/s`;
+    const limit = d.limit === null ? `fails already at ${u.speed(e.speeds[0])}` : `${d.aboveGrid ? 'at least ' : 'up to '}${u.speed(d.limit)}`;
     const rail = d.rail ? `rail ${String(Math.round(d.rail.azimuth)).padStart(3)}°  ` : '';
     lines.push(`  from ${String(d.from).padStart(3)}°  ${rail}${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
   }
-  lines.push(`  forecast     ${forecastVerdict(e).text}`);
+  lines.push(`  forecast     ${forecastVerdict(e, (v) => u.speed(v)).text}`);
   lines.push(`  results      ${folder}`, '', `CAUTION: ${CAUTION}`, '');
   return lines.join('\n');
 }

@@ -14,6 +14,7 @@ import { parseShardOption, shardFolderName } from './shard-option.js';
 import { writeShardFolder } from './shard-folder.js';
 import { honourInterrupt } from './study-files-light.js';
 import { PhaseTimer } from './phase-timer.js';
+import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
@@ -32,6 +33,9 @@ Options:
   --force           replace DIR if strewn wrote it (never a folder holding the scenario)
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
+  --units U         metric or imperial, for the printed summary and the sheet
+                    (default: the scenario's run.units, else metric)
+  --paper P         a4 or letter, for sheet.pdf (default: the scenario's run.paper, else a4)
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
   --allow-outside-files  let the scenario name files outside its own folder
   --shard K/N       fly only shard K of N (K from 0; contiguous sample ranges) into the shard
@@ -45,7 +49,7 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 export async function runCommand(args: string[]): Promise<number> {
   const timer = new PhaseTimer();
   timer.lap('start and load');
-  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' } });
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -58,6 +62,7 @@ export async function runCommand(args: string[]): Promise<number> {
   if (seedOption !== undefined && seedOption.length === 0) throw new UsageError('--seed: expected a non-empty text');
   const quiet = values.quiet === true;
   const json = values.json === true;
+  displayChoices(values);
 
   // The workers load their code while this thread reads the scenario and flies the nominal flight.
   const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
@@ -83,6 +88,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker } = settings;
   const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
+  const { units, paper } = displayChoices(values, scenario.run);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
   const shard = parseShardOption(values.shard as string | undefined, process.env, samples);
@@ -117,12 +123,12 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
       return 0;
     }
     const { writeStudyFiles } = await files!;
-    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, timer);
+    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, timer, { units, paper });
     await honourInterrupt(interrupt.signal);
     out.commit();
     timer.lap('commit');
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
-    else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
+    else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination, units));
     return 0;
   } finally {
     bar.end();

@@ -1,6 +1,7 @@
 import { renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { buildSheet, type Paper, type UnitSystem } from '../report/sheet/index.js';
+import { buildSheet } from '../report/sheet/index.js';
+import { displayChoices } from './display-options.js';
 import { readResultsFolder, ResultsFolderError } from '../report/sheet/read-results.js';
 import { ENVELOPE_FILE, readEnvelopeFolder } from '../envelope/read-envelope.js';
 import { parseCommandArgs, onePositional } from './args.js';
@@ -14,20 +15,15 @@ review.json, contours.geojson, keepout.geojson and, when present, landings.geojs
 are replaced only when both are ready.
 
 Options:
-  --paper a4|letter          paper size (default a4)
-  --units metric|imperial    m, m², m/s or ft/mi, acres/ft², mph (default metric)
+  --paper a4|letter          paper size (default: the scenario's run.paper, else a4)
+  --units metric|imperial    m, m², m/s or ft/mi, acres/ft², mph (default: the scenario's
+                             run.units, else metric)
   --envelope DIR             add the wind-limits page from DIR/envelope.json (written by strewn
                              envelope for the same scenario: its scenarioHash must match)
   -h, --help                 this help
 
 Exit status: 0 done, 2 bad input (folder, files or options), 1 anything else.
 `;
-
-function choice<T extends string>(name: string, value: string | undefined, choices: readonly T[], fallback: T): T {
-  if (value === undefined) return fallback;
-  if (!(choices as readonly string[]).includes(value)) throw new UsageError(`--${name}: '${value}' is not one of ${choices.join(', ')}`);
-  return value as T;
-}
 
 export async function sheetCommand(args: string[]): Promise<number> {
   const { values, positionals } = parseCommandArgs('sheet', args, {
@@ -40,8 +36,7 @@ export async function sheetCommand(args: string[]): Promise<number> {
     return 0;
   }
   const folder = onePositional('sheet', positionals, 'results folder');
-  const paper = choice<Paper>('paper', values.paper as string | undefined, ['a4', 'letter'], 'a4');
-  const units = choice<UnitSystem>('units', values.units as string | undefined, ['metric', 'imperial'], 'metric');
+  displayChoices(values);
   const envelopeFolder = values.envelope as string | undefined;
   let input;
   let envelope;
@@ -57,6 +52,7 @@ export async function sheetCommand(args: string[]): Promise<number> {
     if (error instanceof ResultsFolderError) throw new UsageError(`--envelope: ${error.message}`);
     throw error;
   }
+  const { units, paper } = displayChoices(values, input.scenario.run);
   if (envelope && envelope.scenarioHash !== input.summary.scenarioHash) {
     throw new UsageError(
       `--envelope: ${join(envelopeFolder!, ENVELOPE_FILE)} has scenarioHash ${envelope.scenarioHash.slice(0, 12)}… but ${join(folder, 'summary.json')} has ${input.summary.scenarioHash.slice(0, 12)}…; the wind limits were computed for another scenario (or another version of it)`,

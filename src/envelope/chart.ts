@@ -12,7 +12,7 @@ import { layoutLegend } from '../report/sheet/legend.js';
 import { cautionBox } from '../report/sheet/page-parts.js';
 import { INK_SOFT } from '../report/sheet/palette.js';
 import { renderSvg } from '../report/sheet/render-svg.js';
-import type { UnitSystem } from '../report/sheet/units.js';
+import type { UnitSystem } from '../report/format-number.js';
 import { toWinAnsi } from '../report/sheet/winansi.js';
 import type { EnvelopeResult } from './envelope.js';
 import { polarChart, polarChartLegend, verdictColor } from './polar-chart.js';

@@ -4,7 +4,7 @@
  */
 import type { Paper } from '../report/sheet/page-parts.js';
 import { renderPdf } from '../report/sheet/render-pdf.js';
-import type { UnitSystem } from '../report/sheet/units.js';
+import type { UnitSystem } from '../report/format-number.js';
 import { toWinAnsi } from '../report/sheet/winansi.js';
 import { defaultMeasure } from '../report/sheet/fonts.js';
 import { envelopeSheetPages, type EnvelopeRecord } from './sheet-page.js';

@@ -9,7 +9,11 @@
 export function rangeValues(text: string): number[] | string {
   const parts = text.split(':').map((p) => Number(p.trim()));
   if (parts.length !== 3 || parts.some((p) => !Number.isFinite(p))) return `'${text}' is not start:stop:step`;
-  const [start, stop, step] = parts;
+  return rangeFrom(parts[0]!, parts[1]!, parts[2]!, text);
+}
+
+/** The inclusive range start, start + step, … up to stop; `text` names it in messages. */
+export function rangeFrom(start: number, stop: number, step: number, text: string): number[] | string {
   if (!(step > 0)) return `'${text}' has a step of ${step}; expected a positive step`;
   if (stop < start) return `'${text}' stops before it starts`;
   const count = Math.floor((stop - start) / step + 1e-9) + 1;

@@ -16,7 +16,7 @@ import { ringPath } from '../report/sheet/display-list.js';
 import { CAP_HEIGHT, type TextMeasure } from '../report/sheet/fonts.js';
 import type { LegendEntry } from '../report/sheet/legend.js';
 import { INK, INK_SOFT, LABEL_BACKING } from '../report/sheet/palette.js';
-import type { UnitSystem } from '../report/sheet/units.js';
+import type { UnitSystem } from '../report/format-number.js';
 import type { EnvelopeResult } from './envelope.js';
 import { hatchLines } from './hatch.js';
 import { compassLabel, polarFrame, type PolarFrame } from './polar-frame.js';

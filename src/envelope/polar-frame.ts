@@ -9,7 +9,7 @@
  *   frame.point(90, 2)          // right of the centre, two fifths of the way to the rim
  *   frame.pick(x, y, dirs, sp)  // the grid direction and speed nearest (x, y)
  */
-import { MPH_M_S, type UnitSystem } from '../report/sheet/units.js';
+import { MPH_M_S, type UnitSystem } from '../report/format-number.js';
 
 export interface SpeedUnit {
   name: 'm/s' | 'mph';

@@ -17,7 +17,7 @@ import { CAP_HEIGHT, wrapText, type TextMeasure } from '../report/sheet/fonts.js
 import { layoutLegend } from '../report/sheet/legend.js';
 import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, type SheetOptions } from '../report/sheet/page-parts.js';
 import { INK, INK_SOFT } from '../report/sheet/palette.js';
-import { grouped } from '../report/sheet/units.js';
+import { grouped } from '../report/format-number.js';
 import { toWinAnsi } from '../report/sheet/winansi.js';
 import { textLines, verdictShapes } from './chart.js';
 import type { EnvelopeResult } from './envelope.js';

@@ -2,7 +2,7 @@
  * The words the envelope's chart, page and table share, in metric or imperial speeds, so the
  * SVG, the PDF page and the web page say the same thing the same way.
  */
-import { grouped, unitFormatter, type UnitSystem } from '../report/sheet/units.js';
+import { grouped, unitFormatter, type UnitSystem } from '../report/format-number.js';
 import type { DirectionLimit, EnvelopeResult } from './envelope.js';
 
 /** A speed in m/s as text in the chosen units ("4.9 m/s", "11 mph"). */

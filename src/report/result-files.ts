@@ -11,13 +11,16 @@ import { landingSubset } from '../analysis/thinning.js';
 import type { RunSummary } from './run-summary.js';
 import { reviewFacts, runDate } from './sheet/review-facts.js';
 import { sheetInputFromTexts } from './sheet/sheet-input.js';
-import { buildSheet } from './sheet/index.js';
+import { buildSheet, type Paper, type UnitSystem } from './sheet/index.js';
 
 export type FileContent = string | Uint8Array | Iterable<string | Uint8Array>;
 
 export interface ResultFileOptions {
   /** When the results were computed (default: SOURCE_DATE_EPOCH when set, else now). */
   computedAt?: Date;
+  /** Units and paper of the sheet (default: the scenario's run.units / run.paper, else metric and A4). */
+  units?: UnitSystem;
+  paper?: Paper;
 }
 
 /**
@@ -59,7 +62,10 @@ export function buildResultFiles(
       ['result.kml', writeKml(analysis, scenario.site, scenario.name)],
     );
   }
-  const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set));
+  const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), {
+    units: options.units ?? scenario.run.units,
+    paper: options.paper ?? scenario.run.paper,
+  });
   files.push(['map.svg', sheet.svg], ['sheet.pdf', sheet.pdf]);
   return files;
 }

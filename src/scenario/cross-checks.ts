@@ -52,10 +52,16 @@ function recoveryChecks(recovery: unknown, kind: VehicleKind | undefined): Issue
 
     const hasArea = stage.dragArea !== undefined;
     const hasRate = stage.descentRate !== undefined;
-    if (hasArea && hasRate) issues.push({ path: at('descentRate'), message: 'give either dragArea or descentRate, not both' });
-    if (!hasArea && !hasRate) {
-      issues.push({ path: at('dragArea'), message: 'missing (required); give either dragArea (Cd·A) or descentRate' });
+    const hasDiameter = stage.diameter !== undefined;
+    const hasDrag = stage.drag !== undefined;
+    const ways = [hasArea && 'dragArea', hasRate && 'descentRate', (hasDiameter || hasDrag) && 'diameter and drag'].filter((w): w is string => w !== false);
+    if (ways.length > 1) issues.push({ path: at(hasRate ? 'descentRate' : 'diameter'), message: `give one of dragArea, descentRate, or diameter with drag, not ${ways.join(' and ')}` });
+    if (ways.length === 0) {
+      issues.push({ path: at('dragArea'), message: 'missing (required); give dragArea (Cd·A), descentRate, or the canopy diameter with its drag coefficient drag' });
     }
+    if (hasDiameter && !hasDrag) issues.push({ path: at('drag'), message: "missing (required) with diameter; expected the canopy's drag coefficient referred to that diameter, e.g. 0.8 for a flat circular canopy" });
+    if (hasDrag && !hasDiameter) issues.push({ path: at('diameter'), message: 'missing (required) with drag; expected the canopy diameter the drag coefficient refers to' });
+    if (stage.canopy !== undefined && !hasDiameter) issues.push({ path: at('canopy'), message: 'a canopy note goes with diameter and drag; remove it or give the canopy by its size' });
 
     if (typeof stage.name === 'string') {
       // Failure modes name stages, and "all" means every stage, so names must be unambiguous.

@@ -14,7 +14,9 @@ export function scenarioHash(text: string): string {
 
 /** The hash reports carry: SHA-256 of the canonical JSON of the normalised scenario. */
 export function hashScenario(scenario: Scenario): string {
-  return scenarioHash(canonicalJson(scenario));
+  // How results are shown (run.units, run.paper) does not change what is computed.
+  const { units: _units, paper: _paper, ...run } = scenario.run;
+  return scenarioHash(canonicalJson({ ...scenario, run }));
 }
 
 /**

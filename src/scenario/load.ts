@@ -5,6 +5,8 @@ import { validateScenario, vehicleKindOf } from './schema.js';
 import { loadThrustCurve, type LoadedThrust } from './thrust.js';
 import { scenarioWarnings } from './warnings.js';
 import { rawJsonIssues } from './raw-guards.js';
+import { withUnitSlipWarnings } from './unit-slips.js';
+import { geometryWarnings } from './geometry-warnings.js';
 import type { Issue, Scenario } from './types.js';
 
 /**
@@ -38,7 +40,7 @@ export function parseScenario(json: unknown, options: ParseOptions = {}): Parsed
   if (validation.parsed === undefined) throw new Error('parseScenario: validation returned neither a scenario nor issues');
   const curve = thrust?.curve === undefined ? undefined : { curve: thrust.curve, source: thrust.source };
   const scenario = normalizeScenario(validation.parsed, curve);
-  return { scenario, warnings: scenarioWarnings(scenario) };
+  return { scenario, warnings: inFileOrder(withUnitSlipWarnings(json, scenario.vehicle.kind, [...geometryWarnings(scenario.site), ...scenarioWarnings(scenario)])) };
 }
 
 /** The rocket's thrust curve, read and checked even when other parts of the file are broken. */

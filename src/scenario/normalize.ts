@@ -45,6 +45,16 @@ export function dragAreaForDescentRate(mass: number, rate: number): number {
   return (2 * mass * G0) / (SEA_LEVEL_DENSITY * rate * rate);
 }
 
+/** Cd·A of a canopy of nominal diameter d whose drag coefficient Cd refers to the area π d²/4. */
+export function canopyDragArea(diameter: number, cd: number): number {
+  return (cd * Math.PI * diameter * diameter) / 4;
+}
+
+/** The steady descent rate under `dragArea` in air of `density` (kg/m³), with standard gravity. */
+export function descentRateAtDensity(mass: number, dragArea: number, density: number): number {
+  return Math.sqrt((2 * mass * G0) / (density * dragArea));
+}
+
 /** The steady sea-level descent rate under `dragArea` (the inverse of dragAreaForDescentRate). */
 export function descentRateForDragArea(mass: number, dragArea: number): number {
   return Math.sqrt((2 * mass * G0) / (SEA_LEVEL_DENSITY * dragArea));
@@ -215,9 +225,15 @@ function normalizeStage(stage: ParsedStage, mass: number): RecoveryStage {
     name: stage.name,
     trigger: stage.trigger,
     delay: stage.delay ?? DEFAULT_RECOVERY_DELAY,
-    // The cross-checks guarantee exactly one of dragArea and descentRate.
-    dragArea: stage.dragArea ?? dragAreaForDescentRate(mass, stage.descentRate!),
+    // The cross-checks guarantee exactly one of dragArea, descentRate, and diameter with drag.
+    dragArea:
+      stage.dragArea ??
+      (stage.descentRate !== undefined ? dragAreaForDescentRate(mass, stage.descentRate) : canopyDragArea(stage.diameter!, stage.drag!)),
   };
+  if (stage.diameter !== undefined && stage.drag !== undefined) {
+    out.canopy = { diameter: stage.diameter, drag: stage.drag };
+    if (stage.canopy !== undefined) out.canopy.note = stage.canopy;
+  }
   if (stage.trigger === 'altitude') out.altitude = stage.altitude;
   if (stage.trigger === 'time') out.time = stage.time;
   if (stage.descentRate !== undefined) out.descentRate = stage.descentRate;
@@ -260,7 +276,7 @@ function normalizeUncertainty(uncertainty: ParsedScenario['uncertainty']): Parti
 }
 
 function normalizeRun(run: ParsedScenario['run']): RunSettings {
-  return {
+  const out: RunSettings = {
     samples: run?.samples ?? DEFAULT_RUN.samples,
     seed: run?.seed ?? DEFAULT_RUN.seed,
     levels: run?.levels ?? [...DEFAULT_RUN.levels],
@@ -269,4 +285,7 @@ function normalizeRun(run: ParsedScenario['run']): RunSettings {
       margin: run?.keepOut?.margin ?? DEFAULT_RUN.keepOut.margin,
     },
   };
+  if (run?.units !== undefined) out.units = run.units;
+  if (run?.paper !== undefined) out.paper = run.paper;
+  return out;
 }

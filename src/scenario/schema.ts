@@ -205,6 +205,10 @@ const stageSchema = strict({
   time: optionalQuantity('time', NOT_NEGATIVE),
   dragArea: optionalQuantity('area', POSITIVE),
   descentRate: optionalQuantity('speed', POSITIVE),
+  // A canopy given by its size: nominal diameter and the drag coefficient referred to it.
+  diameter: optionalQuantity('length', POSITIVE),
+  drag: optionalQuantity('number', POSITIVE),
+  canopy: optionalText,
 });
 
 const profileRowSchema = strict({
@@ -250,6 +254,9 @@ const runSchema = (cap: number) =>
       level: optionalQuantity('fraction', { above: 0, below: 1 }),
       margin: optionalQuantity('length', { min: 0, max: MAX_SITE_DISTANCE, hint: () => FLAT_FRAME_HINT }),
     }).optional(),
+    // How results are shown (terminal text, sheet): a default that --units and --paper override.
+    units: oneOf(['metric', 'imperial'] as const).optional(),
+    paper: oneOf(['a4', 'letter'] as const).optional(),
   });
 
 /** Every top-level field; vehicle and launch are parsed on their own once vehicle.kind is known. */

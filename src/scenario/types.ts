@@ -139,6 +139,8 @@ export interface RecoveryStage {
   dragArea: number;
   /** The descent rate as written, when the file gave one (kept for reports). */
   descentRate?: number;
+  /** The canopy as written, when the file gave its size: nominal diameter (m), Cd referred to it, shape note. */
+  canopy?: { diameter: number; drag: number; note?: string };
 }
 
 export interface ProfileRow {
@@ -249,6 +251,10 @@ export interface RunSettings {
   seed: string;
   levels: number[];
   keepOut: KeepOut;
+  /** How results are shown when no --units is given (absent: metric). Not part of the scenario hash. */
+  units?: 'metric' | 'imperial';
+  /** Paper of the review sheet when no --paper is given (absent: a4). Not part of the scenario hash. */
+  paper?: 'a4' | 'letter';
 }
 
 export type AreaKind = 'spectators' | 'parking' | 'road' | 'building' | 'water' | 'other';

@@ -103,8 +103,8 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
   force: {
     label: 'a force',
     si: 'N',
-    listed: ['N', 'lbf'],
-    units: { N: scale(1), lbf: scale(POUND_FORCE) },
+    listed: ['N', 'kN', 'lbf'],
+    units: { N: scale(1), kN: scale(1000), lbf: scale(POUND_FORCE) },
   },
   impulse: {
     label: 'an impulse',

@@ -81,7 +81,7 @@ describe('strewn envelope', () => {
     const out = join(tempDir(), 'never');
     const r = strewn(['envelope', 'scenarios/club-rocket.json', '--paper', 'a3', '--out', out]);
     expect(r.status).toBe(2);
-    expect(r.stderr).toContain("--paper: 'a3'; expected a4 or letter");
+    expect(r.stderr).toContain("--paper: 'a3' is not one of a4, letter");
     expect(existsSync(out)).toBe(false);
   });
 });

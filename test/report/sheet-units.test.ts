@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { percent, unitFormatter, levelText, smallRate } from '../../src/report/sheet/units.js';
+import { percent, unitFormatter, levelText, smallRate } from '../../src/report/format-number.js';
 import { roundDown125, roundLengthAtMost } from '../../src/report/sheet/nice-length.js';
 import { toWinAnsi } from '../../src/report/sheet/winansi.js';
 import { compassPoint } from '../../src/report/sheet/compass.js';

@@ -77,8 +77,8 @@ const cases: BrokenCase[] = [
   { name: 'negative thrust', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, -5], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'thrust -5 N is negative' },
   { name: 'curve not starting at 0', breakIt: (s) => void (s.vehicle.motor.thrust = [[0.05, 10], [1, 0]]), path: 'vehicle.motor.thrust[0]', says: 'must start at t = 0' },
   { name: 'one-row curve', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 10]]), path: 'vehicle.motor.thrust', says: 'at least 2' },
-  { name: 'curve row that is not a pair', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time s, thrust N] pair' },
-  { name: 'curve with text in a row', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, 'NaN'], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time s, thrust N] pair' },
+  { name: 'curve row that is not a pair', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1], [1, 0]]), path: 'vehicle.motor.thrust[1]', says: 'not a [time, thrust] pair' },
+  { name: 'curve with text in a row', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [0.1, 'NaN'], [1, 0]]), path: 'vehicle.motor.thrust[1][1]', says: "'NaN' is not a number with a unit" },
   { name: 'curve with no impulse', breakIt: (s) => void (s.vehicle.motor.thrust = [[0, 0], [1, 0]]), path: 'vehicle.motor.thrust', says: 'no impulse' },
   {
     name: 'curve over 100,000 rows',
@@ -121,8 +121,10 @@ const cases: BrokenCase[] = [
   { name: "failure named 'nominal'", breakIt: (s) => void (s.failures = [{ name: 'nominal', probability: 0.01, stage: 'all' }]), path: 'failures[0].name', says: "'nominal' is the name" },
 
   // Recovery stages
-  { name: 'both dragArea and descentRate', breakIt: (s) => void (s.recovery[1].dragArea = 1.2), path: 'recovery[1].descentRate', says: 'give either dragArea or descentRate, not both' },
-  { name: 'neither dragArea nor descentRate', breakIt: (s) => void delete s.recovery[0].descentRate, path: 'recovery[0].dragArea', says: 'give either dragArea (Cd·A) or descentRate' },
+  { name: 'both dragArea and descentRate', breakIt: (s) => void (s.recovery[1].dragArea = 1.2), path: 'recovery[1].descentRate', says: 'give one of dragArea, descentRate, or diameter with drag, not dragArea and descentRate' },
+  { name: 'canopy diameter without its drag coefficient', breakIt: (s) => void ((s.recovery[1].diameter = '36 in'), delete s.recovery[1].descentRate), path: 'recovery[1].drag', says: "missing (required) with diameter; expected the canopy's drag coefficient" },
+  { name: 'canopy size and a descent rate', breakIt: (s) => void ((s.recovery[1].diameter = '36 in'), (s.recovery[1].drag = 0.8)), path: 'recovery[1].descentRate', says: 'not descentRate and diameter and drag' },
+  { name: 'neither dragArea nor descentRate', breakIt: (s) => void delete s.recovery[0].descentRate, path: 'recovery[0].dragArea', says: 'give dragArea (Cd·A), descentRate, or the canopy diameter with its drag coefficient drag' },
   { name: 'altitude trigger without altitude', breakIt: (s) => void delete s.recovery[1].altitude, path: 'recovery[1].altitude', says: "missing (required) for trigger 'altitude'" },
   { name: 'time trigger without time', breakIt: (s) => void (s.recovery[0].trigger = 'time'), path: 'recovery[0].time', says: "missing (required) for trigger 'time'" },
   { name: 'altitude on an apogee stage', breakIt: (s) => void (s.recovery[0].altitude = 300), path: 'recovery[0].altitude', says: "this stage's trigger is 'apogee'" },

@@ -106,3 +106,88 @@ describe('loading a curve by path', () => {
     expect(loadThrustCurve(undefined).issues[0]!.message).toContain('missing');
   });
 });
+
+// Pound-force is defined as 0.45359237 kg × 9.80665 m/s² = 4.4482216152605 N exactly
+// (NIST SP 811, 2008, appendix B.8); a millisecond is 0.001 s and a kilonewton 1000 N (SI brochure).
+const LBF = 4.4482216152605;
+
+describe('thrust-curve units in the CSV header', () => {
+  it('reads pound-force thrust from every header spelling, in any letter case', () => {
+    const expected = { time: [0, 0.5, 1], thrust: [0, 100 * LBF, 0] };
+    for (const header of ['time_s,thrust_lbf', 'Time (s),Thrust (lbf)', 'time [s];thrust [LBF]', 'TIME_S\tTHRUST_LBF', 'Time (s)  Thrust (lbf)']) {
+      const result = parseThrustCsv(`${header}\n0,0\n0.5,100\n1,0\n`.replace(/,/g, header.includes(';') ? ';' : ','), 'm.csv');
+      expect(result, header).toEqual({ curve: expected, issues: [] });
+    }
+  });
+
+  it('reads milliseconds and kilonewtons', () => {
+    expect(parseThrustCsv('Time (ms),Thrust [kN]\n0,0\n250,1.5\n500,0\n', 'm.csv').curve).toEqual({ time: [0, 0.25, 0.5], thrust: [0, 1500, 0] });
+  });
+
+  it('reads a header without units as seconds and newtons', () => {
+    expect(parseThrustCsv('time,thrust\n0,0\n1,10\n2,0', 'm.csv').curve).toEqual({ time: [0, 1, 2], thrust: [0, 10, 0] });
+  });
+
+  it('refuses a header unit it does not understand, naming the file and the line', () => {
+    const { curve, issues } = parseThrustCsv('# stand test\ntime_s,thrust_kgf\n0,0\n1,10\n2,0', 'm.csv');
+    expect(curve).toBeUndefined();
+    expect(issues).toHaveLength(1);
+    expect(issues[0]!.message).toMatch(/^'m\.csv' line 2: header 'time_s,thrust_kgf': the thrust unit 'kgf' is not understood; expected one of N, kN, lbf/);
+    expect(parseThrustCsv('t (min),F (N)\n0,0\n1,0', 'm.csv').issues[0]!.message).toContain("the time unit 'min' is not understood");
+    expect(parseThrustCsv('time_s,thrust_lb\n0,0\n1,1', 'm.csv').issues[0]!.message).toContain("write 'lbf'");
+    expect(parseThrustCsv('thrust_N,time_s\n0,0\n1,1', 'm.csv').issues[0]!.message).toContain('swap the columns');
+  });
+});
+
+describe('inline thrust rows with units and inline CSV text', () => {
+  it('reads unit strings in inline rows, mixed with plain SI numbers', () => {
+    const result = thrustCurveFromRows([['0 s', '0 lbf'], ['50 ms', '94 lbf'], [1.2, 0]]);
+    expect(result.issues).toEqual([]);
+    expect(result.curve!.time).toEqual([0, 0.05, 1.2]);
+    expect(result.curve!.thrust).toEqual([0, 94 * LBF, 0]);
+  });
+
+  it('names the cell of a unit of the wrong kind', () => {
+    expect(thrustCurveFromRows([[0, 0], ['1 s', '3 kg'], [2, 0]]).issues).toEqual([
+      { path: 'vehicle.motor.thrust[1][1]', message: "thrust: '3 kg' has a unit of mass; expected a force (N, kN, lbf)" },
+    ]);
+  });
+
+  it('reads a thrust string with line breaks as CSV text, not as a file name', () => {
+    const result = loadThrustCurve('time_s,thrust_lbf\n0,0\n0.5,20\n1,0', {
+      readText: () => {
+        throw new Error('must not be read as a path');
+      },
+    });
+    expect(result).toEqual({ source: 'inline', curve: { time: [0, 0.5, 1], thrust: [0, 20 * LBF, 0] }, issues: [] });
+    expect(loadThrustCurve('0,0\n0.5,x\n1,0').issues[0]!.message).toBe("'inline CSV text' line 2: '0.5,x' is not two numbers (time s, thrust N)");
+  });
+
+  it('refuses rows pasted on one line instead of taking them for a path', () => {
+    const { issues } = loadThrustCurve('0,0; 0.1,120; 1,0', { readText: () => '0,0\n1,1' });
+    expect(issues[0]!.message).toContain('looks like thrust rows written on one line');
+    // A real file name that starts with a digit is still a path.
+    expect(loadThrustCurve('2024 motor.csv', { readText: () => '0,0\n1,1' }).issues).toEqual([]);
+  });
+});
+
+describe('every number in a thrust curve is finite and in range', () => {
+  it('refuses 1e400 with the file and line', () => {
+    const { issues } = parseThrustCsv('0,0\n0.1,1e400\n1,0', 'm.csv');
+    expect(issues).toEqual([{ path: 'vehicle.motor.thrust', message: "'m.csv' line 2: '0.1,1e400': thrust '1e400' is too large to be a finite number" }]);
+  });
+
+  it('refuses a 50-MB number, showing at most the first 60 characters of the line', () => {
+    const huge = '9'.repeat(50 * 1024 * 1024);
+    const { issues } = parseThrustCsv(`0,0\n0.1,${huge}\n1,0`, 'big.csv');
+    expect(issues).toHaveLength(1);
+    expect(issues[0]!.message.startsWith("'big.csv' line 2: '0.1,9999")).toBe(true);
+    expect(issues[0]!.message.length).toBeLessThan(200);
+  });
+
+  it('refuses an absurd but finite thrust or time, inline and in a file', () => {
+    expect(parseThrustCsv('0,0\n1,1e300\n2,0', 'm.csv').issues[0]!.message).toContain('line 2');
+    expect(parseThrustCsv('0,0\n1e9,10', 'm.csv').issues[0]!.message).toContain('time 1000000000 s is out of range');
+    expect(thrustCurveFromRows([[0, 0], [1, 1e300], [2, 0]]).issues[0]!.path).toBe('vehicle.motor.thrust[1]');
+  });
+});

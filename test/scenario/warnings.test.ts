@@ -58,13 +58,13 @@ describe('warnings at their thresholds', () => {
     expect(fine).toEqual([]);
   });
 
-  it('reports several warnings together', () => {
+  it('reports several warnings together, in the order of the sections of the file', () => {
     const all = warningsFor((s) => {
       s.launch.tilt = 30;
       s.weather.wind.speed = 12;
       s.recovery[1].descentRate = 1;
     });
-    expect(paths(all)).toEqual(['launch.tilt', 'weather.wind.speed', 'recovery[1].descentRate']);
+    expect(paths(all)).toEqual(['launch.tilt', 'recovery[1].descentRate', 'weather.wind.speed']);
   });
 
   it('gives no tilt warning to a projectile (it has no rail)', () => {

@@ -16,7 +16,7 @@ import { buildRecordPages } from './record-page.js';
 import { renderPdf } from './render-pdf.js';
 import { renderSvg } from './render-svg.js';
 import type { SheetInput } from './sheet-input.js';
-import type { UnitSystem } from './units.js';
+import type { UnitSystem } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
 import type { Page } from './display-list.js';
 import { drawEnvelopePages, planEnvelopePages, type EnvelopeRecord } from '../../envelope/sheet-page.js';
@@ -59,4 +59,4 @@ export function buildSheet(input: SheetInput, choices: SheetChoices = {}): Sheet
 
 export type { SheetInput } from './sheet-input.js';
 export type { Paper } from './page-parts.js';
-export type { UnitSystem } from './units.js';
+export type { UnitSystem } from '../format-number.js';

@@ -8,7 +8,7 @@ import { CAP_HEIGHT } from './fonts.js';
 import { bearingText } from './compass.js';
 import { roundLengthAtMost } from './nice-length.js';
 import { INK, INK_SOFT, PAPER } from './palette.js';
-import type { UnitFormatter } from './units.js';
+import type { UnitFormatter } from '../format-number.js';
 import type { Bounds, MapView, Rect } from './map-view.js';
 import type { Wind } from '../../scenario/types.js';
 import { toWinAnsi } from './winansi.js';

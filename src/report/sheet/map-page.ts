@@ -20,7 +20,7 @@ import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, w
 import { AREA_STYLES, areaStyle, BASEMAP_LABEL, BASEMAP_LABEL_BACKING, BOUNDARY_STROKE, contourLabelColor, contourStyle, INK, INK_SOFT, KEEP_OUT_FILL, KEEP_OUT_STROKE, MINIMUM_DISTANCE_STROKE, modeMarker, RING_STROKE } from './palette.js';
 import type { SheetInput } from './sheet-input.js';
 import { WORDS } from '../symbols.js';
-import { grouped, levelText, percent, unitFormatter, type UnitSystem } from './units.js';
+import { grouped, levelText, percent, unitFormatter, type UnitSystem } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
 
 /** A short id for a level: 0.9 → '90', 0.995 → '99.5'. */

@@ -7,7 +7,7 @@
  *   roundLengthAtMost(730, 'metric')    // { metres: 500, label: '500 m' }
  *   roundLengthAtMost(2000, 'imperial') // { metres: 1609.344, label: '1 mi' }
  */
-import { FOOT_M, MILE_M, grouped, type UnitSystem } from './units.js';
+import { FOOT_M, MILE_M, grouped, type UnitSystem } from '../format-number.js';
 
 export interface RoundLength {
   metres: number;

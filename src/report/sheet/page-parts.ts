@@ -5,7 +5,7 @@ import type { TextMeasure } from './fonts.js';
 import { CAP_HEIGHT, wrapText } from './fonts.js';
 import { INK, INK_SOFT } from './palette.js';
 import { toWinAnsi } from './winansi.js';
-import type { UnitSystem } from './units.js';
+import type { UnitSystem } from '../format-number.js';
 
 export type Paper = 'a4' | 'letter';
 

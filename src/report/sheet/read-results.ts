@@ -233,6 +233,11 @@ export function readResultsFolder(folder: string): SheetInput {
   if (!existsSync(folder)) throw new ResultsFolderError(`${folder}: no such folder`);
   if (!statSync(folder).isDirectory()) throw new ResultsFolderError(`${folder}: is a file; expected a results folder`);
   const summary = checkSummary(folder, parse(folder, 'summary.json', readText(folder, 'summary.json')));
+  if (!existsSync(join(folder, 'scenario.json')) && typeof (summary as unknown as { source?: unknown }).source === 'string') {
+    throw new ResultsFolderError(
+      `${folder}: written by strewn analyze without --scenario, so it has no site and inputs to draw a sheet from; run strewn analyze again with --scenario FILE (it then writes sheet.pdf itself)`,
+    );
+  }
   const scenario = checkScenario(folder, parse(folder, 'scenario.json', readText(folder, 'scenario.json')), summary);
   const review = checkReview(folder, parse(folder, 'review.json', readText(folder, 'review.json')));
   // A run with too few landings has no analysis, hence no contour or keep-out files.

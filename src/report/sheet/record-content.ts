@@ -9,17 +9,19 @@
  */
 import { MotorModel } from '../../physics/motor.js';
 import { AirModel } from '../../physics/air.js';
-import type { Scenario, Spread, UncertaintyName } from '../../scenario/types.js';
+import { descentRateForDragArea } from '../../scenario/normalize.js';
+import type { Scenario, UncertaintyName } from '../../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../../scenario/types.js';
 import { MIN_BAND_SAMPLES } from '../../analysis/confidence.js';
 import { bearingText } from './compass.js';
 import { SPREAD_WORDS } from './input-names.js';
+import { spreadAsFlown } from '../spread-text.js';
 import type { FontName, Shape } from './display-list.js';
 import type { TextMeasure } from './fonts.js';
 import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote } from './sensitivity-bars.js';
 import { dateText } from './page-parts.js';
 import type { SheetInput } from './sheet-input.js';
-import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from './units.js';
+import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from '../format-number.js';
 import { unprintableCount } from './winansi.js';
 
 export interface Column {
@@ -47,42 +49,6 @@ export interface RecordLimits {
   warnings: number;
   /** Most inputs drawn in "What drives the landing spread" (the rest is in summary.json). */
   sensitivityInputs: number;
-}
-
-/** An absolute spread value in the parameter's unit. */
-function spreadValue(name: UncertaintyName, x: number, u: UnitFormatter): string {
-  switch (name) {
-    case 'wind.speed':
-    case 'wind.gust':
-    case 'launch.speed':
-      return u.speed(x);
-    case 'wind.from':
-    case 'launch.tilt':
-    case 'launch.azimuth':
-    case 'launch.elevation':
-    case 'motor.misalignment':
-      return `${significant(x, 3)}\u00b0`;
-    case 'vehicle.cg':
-      return u.shortLength(x);
-    case 'launch.height':
-      return u.shortLength(x);
-    case 'motor.impulse':
-      return u.impulse(x);
-    case 'vehicle.mass':
-      return u.mass(x);
-    case 'vehicle.drag':
-      return `Cd ${significant(x, 3)}`;
-    case 'recovery.delay':
-      return `${significant(x, 3)} s`;
-    case 'recovery.rate':
-      return `${significant(x * 100, 3)} %`;
-  }
-}
-
-export function spreadText(name: UncertaintyName, s: Spread, u: UnitFormatter): string {
-  const value = (x: number) => (s.relative ? `${significant(x * 100, 3)} %` : spreadValue(name, x, u));
-  if (s.kind === 'normal') return `normal, sd ${value(s.sd)}${s.limit !== undefined ? `, cut at ${significant(s.limit, 3)} sd` : ''}`;
-  return `uniform ${value(s.lo)} to ${value(s.hi)}`;
 }
 
 function vehicleText(sc: Scenario, u: UnitFormatter): string {
@@ -128,7 +94,13 @@ function recoveryText(sc: Scenario, u: UnitFormatter): string {
     .map((s, i) => {
       const when = s.trigger === 'apogee' ? 'at apogee' : s.trigger === 'altitude' ? `at ${u.length(s.altitude)} on the way down` : `${significant(s.time, 3)} s after launch`;
       const delay = s.delay > 0 ? ` + ${significant(s.delay, 3)} s` : '';
-      const rate = s.descentRate !== undefined ? `descent ${u.speed(s.descentRate)} at sea level` : `drag area ${u.smallArea(s.dragArea)}`;
+      const seaLevel = descentRateForDragArea(sc.vehicle.mass, s.dragArea);
+      const rate =
+        s.descentRate !== undefined
+          ? `descent ${u.descentRate(s.descentRate)} at sea level`
+          : s.canopy
+            ? `canopy ${u.diameter(s.canopy.diameter)} across, Cd ${significant(s.canopy.drag, 3)}${s.canopy.note ? ` (${s.canopy.note})` : ''}, descent ${u.descentRate(seaLevel)} at sea level`
+            : `drag area ${u.smallArea(s.dragArea)}, descent ${u.descentRate(seaLevel)} at sea level`;
       return `${i + 1}. ${s.name}: ${when}${delay}, ${rate}`;
     })
     .join('\n');
@@ -154,8 +126,10 @@ function airText(sc: Scenario, u: UnitFormatter): string {
 }
 
 function spreadsText(sc: Scenario, u: UnitFormatter): string {
-  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadText(n, sc.uncertainty[n]!, u)}`);
-  return parts.length > 0 ? parts.join('; ') : 'none: every sample flies the nominal flight';
+  const parts = UNCERTAINTY_NAMES.filter((n) => sc.uncertainty[n]).map((n) => `${SPREAD_WORDS[n]}: ${spreadAsFlown(sc, n, sc.uncertainty[n]!, u, { compact: true })}`);
+  if (parts.length === 0) return 'none: every sample flies the nominal flight';
+  const normal = UNCERTAINTY_NAMES.some((n) => sc.uncertainty[n]?.kind === 'normal');
+  return `${parts.join('; ')}${normal ? ' (after \u2192: values flown; ±2 sd for normal spreads)' : ''}`;
 }
 
 function failuresText(sc: Scenario): string {

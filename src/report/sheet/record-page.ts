@@ -14,7 +14,7 @@ import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, t
 import { INK, INK_SOFT } from './palette.js';
 import { recordBlocks, type Block, type Column, type RecordLimits } from './record-content.js';
 import type { SheetInput } from './sheet-input.js';
-import { grouped, unitFormatter } from './units.js';
+import { grouped, unitFormatter } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
 
 interface Style {

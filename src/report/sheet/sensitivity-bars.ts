@@ -13,7 +13,7 @@ import type { Page, Shape } from './display-list.js';
 import { CAP_HEIGHT, type TextMeasure } from './fonts.js';
 import { inputWords } from './input-names.js';
 import { INK, INK_SOFT } from './palette.js';
-import { percent } from './units.js';
+import { percent } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
 
 export interface BarInput {

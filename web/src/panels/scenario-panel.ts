@@ -4,6 +4,9 @@ import { dayFieldGroups, type DayField } from '../scenario/day-fields.js';
 import { DEMOS } from '../scenario/demos.js';
 import { shownValue, writtenValue } from '../scenario/field-values.js';
 import type { Unit } from '../units/systems.js';
+import { spreadsAsFlown } from '../../../src/report/spread-text.js';
+import { unitFormatter } from '../../../src/report/format-number.js';
+import { inputWords } from '../../../src/report/sheet/input-names.js';
 import type { Actions } from './actions.js';
 import { el, replaceChildren, uniqueId } from './dom.js';
 import { issueConcerns, issueList } from './issues.js';
@@ -37,6 +40,8 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
   const otherIssuesBox = el('div', { class: 'alert', attrs: { role: 'alert' }, data: { test: 'draft-issues' } });
   const warningsBox = el('div', { class: 'warnings', data: { test: 'scenario-warnings' } });
   const groupsBox = el('div', { class: 'field-groups' });
+  // Spread numbers are offsets added to the nominal: say what is flown, as the sheet and check do.
+  const flownBox = el('div', { class: 'spreads-flown', data: { test: 'spreads-flown' } });
 
   const rows = new Map<string, FieldRow>();
   let builtFor = '';
@@ -90,6 +95,16 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
       warningsBox.hidden = false;
     } else warningsBox.hidden = true;
 
+    const flown = spreadsAsFlown(state.accepted.scenario, unitFormatter(state.units));
+    if (flown.length > 0) {
+      replaceChildren(
+        flownBox,
+        el('p', { class: 'note', text: 'Spreads as flown (nominal value, offsets \u2192 values flown):' }),
+        el('ul', {}, ...flown.map((f) => el('li', { text: `${inputWords(f.name)}: ${f.text}` }))),
+      );
+      flownBox.hidden = false;
+    } else flownBox.hidden = true;
+
     saveButton.disabled = state.draftIssues.length > 0;
     saveButton.title = saveButton.disabled ? 'Fix the marked fields first' : '';
     // The files the scenario names (its thrust curve), among those opened with it.
@@ -123,6 +138,7 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
     otherIssuesBox,
     warningsBox,
     groupsBox,
+    flownBox,
   );
 }
 

@@ -1,13 +1,15 @@
+import { grouped as groupedText, levelText, percent as percentText } from '../../../src/report/format-number.js';
 import type { Unit } from './systems.js';
 
 /**
- * Numbers as the page shows them: English digit grouping everywhere (the scenario files and the
- * command line use it too), a fixed number of decimals per kind of figure.
+ * Numbers as the page shows them. Grouping, percentages and levels come from the one formatting
+ * module the terminal and the sheet use (src/report/format-number.ts), so the page, the sheet and
+ * the command line print the same figure the same way.
  */
 
 export function grouped(x: number, decimals = 0): string {
   if (!Number.isFinite(x)) return 'n/a';
-  return x.toLocaleString('en', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+  return groupedText(x, decimals);
 }
 
 /** An SI value in `unit`, e.g. "3,089 ft". */
@@ -17,20 +19,14 @@ export function inUnit(si: number, unit: Unit, decimals = 0): string {
   return unit.label === '' ? text : unit.label === '°' ? `${text}°` : `${text} ${unit.label}`;
 }
 
-/** A probability as a percentage with enough digits to tell small values apart. */
+/** A probability as a percentage with two significant figures, as on the sheet. */
 export function percent(p: number): string {
-  if (!Number.isFinite(p)) return 'n/a';
-  if (p === 0) return '0 %';
-  const pct = p * 100;
-  if (pct >= 10) return `${pct.toFixed(1)} %`;
-  if (pct >= 0.1) return `${pct.toFixed(2)} %`;
-  return `${pct.toPrecision(2)} %`;
+  return percentText(p);
 }
 
-/** A probability level such as 0.99 as "99 %" (one decimal only where needed: "99.9 %"). */
+/** A probability level such as 0.99 as "99 %" (decimals only where needed: "99.9 %"). */
 export function level(p: number): string {
-  const pct = p * 100;
-  return `${Number.isInteger(Math.round(pct * 1e6) / 1e6) ? pct.toFixed(0) : String(Number(pct.toFixed(2)))} %`;
+  return levelText(p);
 }
 
 /** A field value for an input box: up to `significant` digits, no grouping (it must parse back). */
