@@ -120,7 +120,9 @@ describe('map workspace', () => {
       const path = await download(page, `[data-export="${name}"]`, join(session.work, 'page-files'));
       expectSameText(readFileSync(path, 'utf8'), readFileSync(join(folder, 'out', name), 'utf8'), name);
     }
-    const sheet = await download(page, '[data-export="sheet.pdf"]', join(session.work, 'page-files'));
+    // One review-sheet button, in the page's units and paper (metric, A4 here).
+    const sheet = await download(page, '[data-export="sheet"]', join(session.work, 'page-files'));
+    expect(sheet.endsWith('sheet-metric-a4.pdf')).toBe(true);
     expect(readFileSync(sheet).subarray(0, 5).toString('latin1')).toBe('%PDF-');
 
     // Pointing at a landing tells its sample, mode, apogee and flight time (checked against the
@@ -156,7 +158,7 @@ describe('map workspace', () => {
     // The review sheet redrawn in the page's units, as `strewn sheet --units imperial` would.
     await page.locator('[data-tab="files"]').click();
     await page.locator('#sheet-paper').selectOption('letter');
-    const imperialSheet = await download(page, '[data-export="sheet-redrawn"]', join(session.work, 'page-files'));
+    const imperialSheet = await download(page, '[data-export="sheet"]', join(session.work, 'page-files'));
     expect(imperialSheet.endsWith('sheet-imperial-letter.pdf')).toBe(true);
     const pdf = readFileSync(imperialSheet);
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');

@@ -7,20 +7,21 @@ import { el } from '../panels/dom.js';
  * Before printing, the map is drawn once more synchronously (`redraw`) and read out in the same
  * task, while the picture is still there; the print stylesheet shows that image in the canvas'
  * place, under the legend and wind card, with a line pointing to the review sheet as the record.
+ * The image exists only while printing.
  */
-export function installPrintSnapshot(map: MapLibreMap, container: HTMLElement): HTMLImageElement {
-  const image = el('img', { class: 'print-map', attrs: { alt: 'The map as shown on the screen', 'aria-hidden': 'true' }, data: { test: 'print-map' } }) as HTMLImageElement;
-  container.prepend(image);
-  const snap = () => {
+export function installPrintSnapshot(map: MapLibreMap, container: HTMLElement): void {
+  let image: HTMLImageElement | null = null;
+  window.addEventListener('beforeprint', () => {
     try {
       map.redraw();
-      image.src = map.getCanvas().toDataURL('image/png');
+      const src = map.getCanvas().toDataURL('image/png');
+      image ??= el('img', { class: 'print-map', attrs: { alt: 'The map as shown on the screen' }, data: { test: 'print-map' } }) as HTMLImageElement;
+      image.src = src;
+      container.prepend(image);
     } catch (error) {
       // A map that cannot be read out prints blank; the note beside it still offers the sheet.
       console.warn('the map could not be captured for printing', error);
     }
-  };
-  window.addEventListener('beforeprint', snap);
-  window.addEventListener('afterprint', () => image.removeAttribute('src'));
-  return image;
+  });
+  window.addEventListener('afterprint', () => image?.remove());
 }
