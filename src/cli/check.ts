@@ -25,7 +25,7 @@ export async function checkCommand(args: string[]): Promise<number> {
   const loaded = loadForCommand(path, maxSamples);
   const sc = loaded.scenario;
   // Show the air the flight will actually meet, also where the file left it to the standard atmosphere.
-  const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure);
+  const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure, sc.weather.air);
   const shown = {
     ...sc,
     weather: { ...sc.weather, temperature: air.padTemperature, pressure: air.padPressure },

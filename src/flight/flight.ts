@@ -111,7 +111,7 @@ export class FlightModel implements OdeSystem {
     this.scenario = scenario;
     this.options = { ...DEFAULT_FLIGHT_OPTIONS, ...options };
     const weather = scenario.weather;
-    this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure);
+    this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure, weather.air);
     this.wind = new MeanWind(weather.wind);
     this.gusts = new GustField();
     this.dragCurve = new DragCurve(scenario.vehicle.drag);

@@ -32,6 +32,7 @@ export function loadScenarioFile(path: string, options: FileOptions = {}): Loade
     const { scenario, warnings } = parseScenario(json, {
       baseDir: dirname(path),
       readText,
+      readBytes: (p) => readFileSync(p),
       maxSamples: options.maxSamples,
     });
     return { scenario, warnings, hash: hashScenario(scenario) };

@@ -132,8 +132,8 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
   time: {
     label: 'a time',
     si: 's',
-    listed: ['s', 'ms'],
-    units: { s: scale(1), ms: scale(0.001) },
+    listed: ['s', 'ms', 'min', 'h'],
+    units: { s: scale(1), ms: scale(0.001), min: scale(60), h: scale(3600) },
   },
   fraction: {
     label: "a fraction such as 0.05 or '5 %'",
