@@ -257,7 +257,7 @@ export function speedFrom(u: number, v: number): { speed: number; from: number }
   const speed = Math.hypot(u, v);
   let from = (Math.atan2(-u, -v) * 180) / Math.PI;
   if (from < 0) from += 360;
-  return { speed: round(speed, 2), from: speed === 0 ? 0 : round(from, 1) % 360 };
+  return { speed: round(speed, 2), from: speed === 0 ? 0 : round(from, 1) % 360 || 0 };
 }
 
 function round(x: number, digits: number): number {
