@@ -5,8 +5,14 @@ import { reusableWorkers } from '../pool/reuse.js';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { rangeValues } from '../envelope/grid.js';
 import { windEnvelope } from '../envelope/envelope.js';
-import { writeEnvelopeCsv, writeEnvelopeJson } from '../envelope/writers.js';
-import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
+import { writeEnvelopeCsv, writeEnvelopeJson, writeWindowCsv } from '../envelope/writers.js';
+import { envelopeChart, forecastVerdict, judgeWindow } from '../envelope/chart.js';
+import { readFileSync } from 'node:fs';
+import { dirname } from 'node:path';
+import { hourlyWinds } from '../forecast/window.js';
+import { resolveRelativePath } from '../scenario/thrust.js';
+import { isoTime } from '../scenario/time.js';
+import type { Scenario } from '../scenario/types.js';
 import { envelopePdf } from '../envelope/envelope-pdf.js';
 import { CAUTION } from '../report/caution.js';
 import { isoSeconds, runDate } from '../report/sheet/review-facts.js';
@@ -27,6 +33,10 @@ building. Reports, per direction, the highest speed at which every test holds an
 fails first above it. Writes envelope.json, envelope.csv, envelope.svg (the polar chart) and
 envelope.pdf (a page in the review sheet's style; \`strewn sheet <results> --envelope <this folder>\`
 adds the same page to a run's review sheet).
+
+With weather.forecast, the forecast wind at the reference height for every hour of the chosen
+day (UTC) within the file's steps is judged against the limits (the launch window): printed,
+drawn on the chart and written to window.csv.
 
 Options:
   --directions A:B:S  wind directions in degrees, start:stop:step (default 0:330:30)
@@ -102,10 +112,13 @@ export async function envelopeCommand(args: string[]): Promise<number> {
       onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
     });
     bar.end();
+    const forecast = scenario.weather.forecast;
+    if (forecast) result.window = launchWindow(result, path, scenario);
     const computedAt = isoSeconds(runDate());
     const extra = { version: VERSION, scenarioHash: loaded.hash, computedAt, caution: CAUTION };
     out.write('envelope.json', writeEnvelopeJson(result, extra));
     out.write('envelope.csv', writeEnvelopeCsv(result));
+    if (result.window) out.write('window.csv', writeWindowCsv(result.window));
     out.write('envelope.svg', envelopeChart(result, { units }));
     out.write('envelope.pdf', envelopePdf({ envelope: result, scenarioHash: loaded.hash, version: VERSION, computedAt }, { paper, units }));
     out.commit();
@@ -120,6 +133,14 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   }
 }
 
+/** The forecast's hours of the chosen day judged against the limits. */
+function launchWindow(result: Awaited<ReturnType<typeof windEnvelope>>, scenarioPath: string, scenario: Scenario): NonNullable<typeof result.window> {
+  const f = scenario.weather.forecast!;
+  const bytes = readFileSync(resolveRelativePath(dirname(scenarioPath), f.file));
+  const hours = hourlyWinds(bytes, scenario.site.pad, Date.parse(f.time), scenario.weather.wind.height, scenario.weather.wind.shear);
+  return judgeWindow(result, hours.map((h) => ({ time: isoTime(h.time), speed: h.speed, from: h.from })));
+}
+
 function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string): string {
   const lines = [`${e.name}: wind limits (${e.samples.toLocaleString('en')} samples per point, ${e.casesFlown} points flown in ${e.elapsed_s.toFixed(1)} s)`];
   for (const d of e.limits) {
@@ -127,6 +148,12 @@ function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: str
     lines.push(`  from ${String(d.from).padStart(3)}°  ${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
   }
   lines.push(`  forecast     ${forecastVerdict(e).text}`);
+  if (e.window && e.window.length > 0) {
+    lines.push(`  launch window ${e.window[0].time.slice(0, 10)} (UTC, forecast wind at the reference height against the limits):`);
+    for (const h of e.window) {
+      lines.push(`    ${h.time.slice(11, 16)}  ${h.speed.toFixed(1).padStart(5)} m/s from ${String(Math.round(h.from)).padStart(3)}°  ${h.inside ? 'inside' : 'OUTSIDE'}${h.limit === null ? '' : ` (limit about ${h.limit.toFixed(1)} m/s)`}`);
+    }
+  }
   lines.push(`  results      ${folder}`, '', `CAUTION: ${CAUTION}`, '');
   return lines.join('\n');
 }
