@@ -22,7 +22,7 @@ export async function checkCommand(args: string[]): Promise<number> {
   }
   const path = onePositional('check', positionals, 'scenario file');
   const maxSamples = integerOption('max-samples', values['max-samples'] as string | undefined, 1, Number.MAX_SAFE_INTEGER);
-  const loaded = loadForCommand(path, maxSamples);
+  const loaded = await loadForCommand(path, maxSamples);
   const sc = loaded.scenario;
   // Show the air the flight will actually meet, also where the file left it to the standard atmosphere.
   const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure, sc.weather.air);

@@ -87,7 +87,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
-  const loaded = loadForCommand(path);
+  const loaded = await loadForCommand(path);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
   const seed = (values.seed as string | undefined) ?? scenario.run.seed;

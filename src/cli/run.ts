@@ -49,7 +49,7 @@ export async function runCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
-  const loaded = loadForCommand(path, maxSamples);
+  const loaded = await loadForCommand(path, maxSamples);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;

@@ -1,11 +1,11 @@
-import { loadScenarioFile, type LoadedScenario } from '../scenario/file.js';
+import { loadScenarioFileWithTerrain, type LoadedScenario } from '../scenario/file.js';
 import { railExitSpeedWarnings } from '../scenario/warnings.js';
 import { flyNominal } from '../dispersion/runner.js';
 import type { Issue } from '../scenario/types.js';
 
 /** Loads a scenario and adds the warnings only a flight can give (rail-exit speed). */
-export function loadForCommand(path: string, maxSamples?: number): LoadedScenario & { nominal: ReturnType<typeof flyNominal> } {
-  const loaded = loadScenarioFile(path, { maxSamples });
+export async function loadForCommand(path: string, maxSamples?: number): Promise<LoadedScenario & { nominal: ReturnType<typeof flyNominal> }> {
+  const loaded = await loadScenarioFileWithTerrain(path, { maxSamples });
   const nominal = flyNominal(loaded.scenario);
   const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed)];
   return { ...loaded, warnings, nominal };

@@ -10,6 +10,7 @@ import type { FlightInputs } from './inputs.js';
 import { FlightStatus } from './status.js';
 import { RecoverySchedule } from './recovery-schedule.js';
 import { locateCrossing } from './locate-crossing.js';
+import { GroundHeight } from './ground.js';
 
 const DEG = Math.PI / 180;
 
@@ -88,6 +89,8 @@ export class FlightModel implements OdeSystem {
   private readonly solver = new Dopri5(6);
 
   private readonly recovery: RecoverySchedule;
+  /** Ground height above the pad under a point (terrain, or level ground). */
+  private readonly ground: GroundHeight;
 
   // Per-sample configuration read by `derivative`.
   private dryMass = 1;
@@ -118,6 +121,7 @@ export class FlightModel implements OdeSystem {
     this.motor = scenario.vehicle.kind === 'rocket' && scenario.vehicle.motor ? new MotorModel(scenario.vehicle.motor) : null;
     this.stopAtKnots = this.motor !== null && this.motor.knots <= 256;
     this.referenceArea = scenario.vehicle.referenceArea;
+    this.ground = new GroundHeight(scenario.site.terrain);
     this.recovery = new RecoverySchedule(scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery);
     const atol = this.solver.atol;
     atol[0] = atol[1] = atol[2] = this.options.atolPosition;
@@ -302,6 +306,8 @@ export class FlightModel implements OdeSystem {
       if (!allFinite(yNew)) return this.fail(out, FlightStatus.NON_FINITE, t, steps);
       const tNew = hitsClock ? tNext : t + hTry;
       const yPrevZ = y[2];
+      // Height above the ground under the object (the pad's level without terrain).
+      const yPrevG = y[2] - this.ground.at(y[0], y[1]);
       const yPrevVz = y[5];
       const yPrevS = this.onRail ? y[0] * this.railX + y[1] * this.railY + y[2] * this.railZ : 0;
       solver.accept();
@@ -327,8 +333,9 @@ export class FlightModel implements OdeSystem {
           event = EV_APOGEE;
           tEvent = t;
         }
-        if (y[2] <= 0 && yPrevZ > 0) {
-          const te = this.locate(EV_GROUND, 0, t, tNew, yPrevZ, y[2]);
+        const g = y[2] - this.ground.at(y[0], y[1]);
+        if (g <= 0 && yPrevG > 0) {
+          const te = this.locate(EV_GROUND, 0, t, tNew, yPrevG, g);
           if (te < tEvent || (te === tEvent && event !== EV_APOGEE)) { event = EV_GROUND; tEvent = te; }
         }
         if (apogeeReached) {
@@ -360,7 +367,7 @@ export class FlightModel implements OdeSystem {
       t = tEvent;
       if (ye[2] > out.apogee) out.apogee = ye[2];
       if (event === EV_GROUND) {
-        ye[2] = 0;
+        ye[2] = this.ground.at(ye[0], ye[1]);
         if (track !== null) track(t, ye);
         out.east = ye[0];
         out.north = ye[1];
@@ -437,6 +444,8 @@ export class FlightModel implements OdeSystem {
         );
       case EV_APOGEE:
         return s.denseComponent(5, t);
+      case EV_GROUND:
+        return s.denseComponent(2, t) - this.ground.at(s.denseComponent(0, t), s.denseComponent(1, t));
       default:
         return s.denseComponent(2, t) - level;
     }

@@ -158,7 +158,7 @@ function forecastChecks(weather: unknown): Issue[] {
   if (!isRecord(wind)) return [];
   return (['speed', 'from'] as const)
     .filter((key) => wind[key] === undefined)
-    .map((key) => ({ path: `weather.wind.${key}`, message: 'missing (required) unless weather.forecast gives the wind' }));
+    .map((key) => ({ path: `weather.wind.${key}`, message: `missing (required); expected ${key === 'speed' ? 'a speed' : 'an angle'}, unless weather.forecast gives the wind` }));
 }
 
 /** Profile rows may come in any order, but two rows at one altitude would make the wind there ambiguous. */

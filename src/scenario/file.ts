@@ -4,6 +4,8 @@ import { ScenarioError } from './errors.js';
 import { hashScenario } from './hash.js';
 import { parseJsonText } from './json-text.js';
 import { parseScenario } from './load.js';
+import { resolveRelativePath } from './thrust.js';
+import { readDem, type Dem } from '../terrain/dem.js';
 import type { Issue, Scenario } from './types.js';
 
 /** Loading a scenario file in Node: the file system side of load.ts. */
@@ -25,7 +27,7 @@ export interface LoadedScenario {
  * file's folder. Every input problem (unreadable file, JSON syntax, invalid content) is thrown as
  * a `ScenarioError` whose heading names the file.
  */
-export function loadScenarioFile(path: string, options: FileOptions = {}): LoadedScenario {
+export function loadScenarioFile(path: string, options: FileOptions = {}, dems?: ReadonlyMap<string, Dem | Error>): LoadedScenario {
   const text = readText(path);
   const json = parseJsonText(text, path);
   try {
@@ -34,6 +36,7 @@ export function loadScenarioFile(path: string, options: FileOptions = {}): Loade
       readText,
       readBytes: (p) => readFileSync(p),
       maxSamples: options.maxSamples,
+      dems,
     });
     return { scenario, warnings, hash: hashScenario(scenario) };
   } catch (error) {
@@ -50,4 +53,31 @@ function readText(path: string): string {
     const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : error instanceof Error ? error.message : String(error);
     throw new ScenarioError([{ path, message: `cannot read the file: ${reason}` }], 'The scenario file cannot be read');
   }
+}
+
+/**
+ * `loadScenarioFile` for scenarios that may name a `site.terrain` GeoTIFF: the model is decoded
+ * first (geotiff reads asynchronously), then the scenario is loaded with it.
+ */
+export async function loadScenarioFileWithTerrain(path: string, options: FileOptions = {}): Promise<LoadedScenario> {
+  const dems = new Map<string, Dem | Error>();
+  let raw: unknown;
+  try {
+    raw = JSON.parse(readFileSync(path, 'utf8'));
+  } catch {
+    // loadScenarioFile reports unreadable files and JSON errors with their own messages.
+    return loadScenarioFile(path, options);
+  }
+  const spec = (raw as { site?: { terrain?: unknown } } | null)?.site?.terrain;
+  if (typeof spec === 'string') {
+    const resolved = resolveRelativePath(dirname(path), spec);
+    try {
+      dems.set(spec, await readDem(readFileSync(resolved)));
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      const reason = code === 'ENOENT' ? `no such file (looked for ${resolved})` : error instanceof Error ? error.message : String(error);
+      dems.set(spec, new Error(reason));
+    }
+  }
+  return loadScenarioFile(path, options, dems);
 }

@@ -6,9 +6,12 @@ import { profileAt } from '../physics/wind.js';
 import { isoTime } from './time.js';
 import { resolveRelativePath } from './thrust.js';
 import type { ParsedScenario } from './schema.js';
+import { DemError, type Dem } from '../terrain/dem.js';
+import { localTerrainGrid } from '../terrain/local-grid.js';
+import { createLocalFrame } from '../analysis/geodesy.js';
 import { validateScenario, vehicleKindOf } from './schema.js';
 import { loadThrustCurve, type LoadedThrust } from './thrust.js';
-import { UNCERTAINTY_NAMES, type ForecastSource, type Spread, type UncertaintyName } from './types.js';
+import { UNCERTAINTY_NAMES, type ForecastSource, type Spread, type TerrainGrid, type UncertaintyName } from './types.js';
 import { scenarioWarnings } from './warnings.js';
 import type { Issue, Scenario } from './types.js';
 
@@ -26,6 +29,11 @@ export interface ParseOptions {
   maxSamples?: number;
   /** Reads a file's bytes (a GRIB2 forecast). Without it, a scenario with `weather.forecast` is refused. */
   readBytes?: (path: string) => Uint8Array;
+  /**
+   * Elevation models already read (GeoTIFF decoding is asynchronous), by `site.terrain` as written.
+   * Without one, a scenario with `site.terrain` is refused.
+   */
+  dems?: ReadonlyMap<string, Dem | Error>;
 }
 
 export interface ParsedScenarioResult {
@@ -45,7 +53,22 @@ export function parseScenario(json: unknown, options: ParseOptions = {}): Parsed
   const forecast = applyForecast(validation.parsed, options);
   const scenario = normalizeScenario(validation.parsed, curve);
   if (forecast) finishForecast(scenario, forecast, validation.parsed);
+  if (validation.parsed.site.terrain !== undefined) scenario.site.terrain = terrainGrid(validation.parsed.site.terrain, scenario, options);
   return { scenario, warnings: scenarioWarnings(scenario) };
+}
+
+/** `site.terrain`: the elevation model on the flight's east/north grid, heights above the pad. */
+function terrainGrid(file: string, scenario: Scenario, options: ParseOptions): TerrainGrid {
+  const dem = options.dems?.get(file);
+  const fail = (message: string) => new ScenarioError([{ path: 'site.terrain', message }]);
+  if (dem === undefined) throw fail('an elevation model cannot be read here; run the scenario from the command line');
+  if (dem instanceof Error) throw fail(`'${file}': ${dem.message}`);
+  try {
+    return localTerrainGrid(dem, scenario.site.pad.elevation, createLocalFrame(scenario.site.pad), file);
+  } catch (error) {
+    if (error instanceof DemError) throw fail(`'${file}': ${error.message}`);
+    throw error;
+  }
 }
 
 interface AppliedForecast {

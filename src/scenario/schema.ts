@@ -85,6 +85,7 @@ const siteSchema = strict({
     )
     .optional(),
   basemap: featureCollection,
+  terrain: text('a GeoTIFF elevation model path in quotes, relative to the scenario file').optional(),
 });
 
 const commonVehicle = {

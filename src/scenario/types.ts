@@ -224,6 +224,24 @@ export interface Site {
   areas: Area[];
   /** GeoJSON FeatureCollection, passed through untouched. */
   basemap?: { type: 'FeatureCollection'; features: unknown[] };
+  /** The ground from `site.terrain` (a GeoTIFF elevation model); absent means level ground. */
+  terrain?: TerrainGrid;
+}
+
+/**
+ * Ground height above the pad's elevation (m) on a regular east/north grid (m from the pad):
+ * node (i, j) at (east0 + i step, north0 + j step), row-major from the south-west; bilinear
+ * between nodes and held at the edge outside.
+ */
+export interface TerrainGrid {
+  /** The GeoTIFF as written in the scenario. */
+  file: string;
+  east0: number;
+  north0: number;
+  step: number;
+  nx: number;
+  ny: number;
+  heights: number[];
 }
 
 export interface Scenario {
