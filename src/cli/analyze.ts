@@ -7,7 +7,7 @@ import { summaryParts } from '../analysis/summary.js';
 import { writeContoursGeoJSON, writeKeepOutGeoJSON, landingsGeoJSONChunks } from '../analysis/geojsonWriters.js';
 import { writeAreasCsv } from '../analysis/areasCsv.js';
 import { writeKml } from '../analysis/kml.js';
-import { loadScenarioFile } from '../scenario/file.js';
+import { loadScenarioFileWithTerrain } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
 import { CAUTION } from '../report/caution.js';
 import { VERSION } from '../version.js';
@@ -69,7 +69,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   let site: Site;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
-    const loaded = loadScenarioFile(values.scenario as string);
+    const loaded = await loadScenarioFileWithTerrain(values.scenario as string);
     site = loaded.scenario.site;
     run = loaded.scenario.run;
   } else if (values.pad !== undefined) {

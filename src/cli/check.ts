@@ -26,8 +26,11 @@ export async function checkCommand(args: string[]): Promise<number> {
   const sc = loaded.scenario;
   // Show the air the flight will actually meet, also where the file left it to the standard atmosphere.
   const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure, sc.weather.air);
+  const t = sc.site.terrain;
   const shown = {
     ...sc,
+    // The terrain grid is summarised: its heights are thousands of numbers.
+    site: t ? { ...sc.site, terrain: { file: t.file, east0: t.east0, north0: t.north0, step: t.step, nx: t.nx, ny: t.ny, lowest: Math.min(...t.heights), highest: Math.max(...t.heights) } } : sc.site,
     weather: { ...sc.weather, temperature: air.padTemperature, pressure: air.padPressure },
   };
   process.stdout.write(JSON.stringify(shown, null, 2) + '\n');
