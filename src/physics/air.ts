@@ -1,10 +1,13 @@
-import { standardAtmosphere, geopotentialAltitude, emptyAirState } from './atmosphere.js';
+import { standardAtmosphere, geopotentialAltitude, emptyAirState, hydrostaticPressure } from './atmosphere.js';
 import { G0, GAMMA, R_AIR } from './constants.js';
 
 /**
  * The air a flight meets: the 1976 standard atmosphere shifted so that it matches the temperature
- * and pressure measured at the pad. Temperature is offset by a constant, pressure scaled by a
- * constant; density and speed of sound follow.
+ * and pressure measured at the pad. Temperature is the standard one plus the pad's offset from it
+ * at every height; pressure follows from the hydrostatic equation with that temperature, starting
+ * from the pad's pressure (g0 with geopotential height, as the standard atmosphere itself does).
+ * Density and speed of sound follow. On a standard-temperature day this is the standard pressure
+ * profile scaled to the pad's pressure; on a hot day pressure falls more slowly with height.
  *
  * The hot loop asks for density and speed of sound many million times a second, so the model is
  * tabulated once per scenario on a fine grid (linear interpolation; relative error below 1e-6 at a
@@ -13,6 +16,9 @@ import { G0, GAMMA, R_AIR } from './constants.js';
 const STEP = 10;
 const INV_STEP = 1 / STEP;
 const SPAN = 60_000;
+/** The table reaches this far below the pad (valleys, sites below the pad), m. */
+const BELOW = 2_000;
+const BELOW_NODES = BELOW / STEP;
 
 /** What the equations of motion need from the air. */
 export interface Air {
@@ -27,6 +33,8 @@ export class AirModel implements Air {
   static readonly STEP = STEP;
   /** Table height above the pad, m. */
   static readonly SPAN = SPAN;
+  /** Table depth below the pad, m. */
+  static readonly BELOW = BELOW;
 
   readonly padElevation: number;
   readonly padTemperature: number;
@@ -36,19 +44,20 @@ export class AirModel implements Air {
   private readonly last: number;
 
   /**
-   * `rows` (optional, from a forecast): temperature by altitude above the pad, sorted. Then the
-   * temperature is linear between rows, and above the top row it follows the standard atmosphere's
-   * shape offset to meet that row; pressure follows from the hydrostatic equation, integrated up
-   * from the pad's pressure with g0 over geopotential height (trapezoids in 1/T on the 10 m grid).
+   * `rows` (optional, from a forecast): temperature by altitude above the pad, sorted, the first at
+   * the pad. Then the temperature is linear between rows; above the top row it follows the standard
+   * atmosphere's shape offset to meet that row, below the pad the lowest layer's lapse rate; pressure
+   * follows from the hydrostatic equation from the pad's pressure, with g0 over geopotential height
+   * (trapezoids in 1/T on the 10 m grid).
    */
   constructor(padElevation: number, temperature?: number, pressure?: number, rows?: readonly { altitude: number; temperature: number }[]) {
-    const std = standardAtmosphere(geopotentialAltitude(padElevation));
+    const padH = geopotentialAltitude(padElevation);
+    const std = standardAtmosphere(padH);
     this.padElevation = padElevation;
     this.padTemperature = temperature ?? std.temperature;
     this.padPressure = pressure ?? std.pressure;
     const dT = this.padTemperature - std.temperature;
-    const pScale = this.padPressure / std.pressure;
-    const n = Math.floor(SPAN / STEP) + 1;
+    const n = BELOW_NODES + Math.floor(SPAN / STEP) + 1;
     this.density = new Float64Array(n);
     this.sound = new Float64Array(n);
     this.last = n - 1;
@@ -58,9 +67,10 @@ export class AirModel implements Air {
       return;
     }
     for (let i = 0; i < n; i++) {
-      standardAtmosphere(geopotentialAltitude(padElevation + i * STEP), s);
+      const h = geopotentialAltitude(padElevation + (i - BELOW_NODES) * STEP);
+      standardAtmosphere(h, s);
       const t = s.temperature + dT;
-      const p = s.pressure * pScale;
+      const p = hydrostaticPressure(this.padPressure, padH, h, dT);
       this.density[i] = p / (R_AIR * t);
       this.sound[i] = Math.sqrt(GAMMA * R_AIR * t);
     }
@@ -69,27 +79,36 @@ export class AirModel implements Air {
   private tabulateFromRows(rows: readonly { altitude: number; temperature: number }[], n: number, s: ReturnType<typeof emptyAirState>): void {
     const top = rows[rows.length - 1];
     const topStd = standardAtmosphere(geopotentialAltitude(this.padElevation + top.altitude)).temperature;
+    const padT = this.padTemperature;
     const temperatureAt = (h: number): number => {
-      if (h <= rows[0].altitude) return h <= 0 && rows[0].altitude <= 0 ? this.padTemperature : rows[0].altitude <= 0 ? rows[0].temperature : this.padTemperature + (h / rows[0].altitude) * (rows[0].temperature - this.padTemperature);
+      if (rows.length === 1) return padT;
+      if (h <= rows[0].altitude) {
+        const a = rows[0], b = rows[1];
+        return padT + (h - a.altitude) * ((b.temperature - a.temperature) / (b.altitude - a.altitude));
+      }
       for (let k = 1; k < rows.length; k++) {
         if (h <= rows[k].altitude) {
-          const a = rows[k - 1], b = rows[k];
+          const a = k === 1 ? { altitude: rows[0].altitude, temperature: padT } : rows[k - 1], b = rows[k];
           return a.temperature + ((h - a.altitude) / (b.altitude - a.altitude)) * (b.temperature - a.temperature);
         }
       }
       return standardAtmosphere(geopotentialAltitude(this.padElevation + h), s).temperature + (top.temperature - topStd);
     };
-    let p = this.padPressure;
-    let tPrev = temperatureAt(0);
-    let hPrev = geopotentialAltitude(this.padElevation);
+    const heightOf = (i: number) => (i - BELOW_NODES) * STEP;
+    const pressure = new Float64Array(n);
+    const temps = new Float64Array(n);
+    for (let i = 0; i < n; i++) temps[i] = temperatureAt(heightOf(i));
+    // Integrate up and down from the pad's node.
+    pressure[BELOW_NODES] = this.padPressure;
+    const layer = (i: number, j: number) => {
+      const dh = geopotentialAltitude(this.padElevation + heightOf(j)) - geopotentialAltitude(this.padElevation + heightOf(i));
+      return Math.exp((-G0 * dh * (1 / temps[i] + 1 / temps[j])) / (2 * R_AIR));
+    };
+    for (let i = BELOW_NODES + 1; i < n; i++) pressure[i] = pressure[i - 1] * layer(i - 1, i);
+    for (let i = BELOW_NODES - 1; i >= 0; i--) pressure[i] = pressure[i + 1] * layer(i + 1, i);
     for (let i = 0; i < n; i++) {
-      const t = i === 0 ? tPrev : temperatureAt(i * STEP);
-      const hNow = geopotentialAltitude(this.padElevation + i * STEP);
-      if (i > 0) p *= Math.exp((-G0 * (hNow - hPrev) * (1 / tPrev + 1 / t)) / (2 * R_AIR));
-      this.density[i] = p / (R_AIR * t);
-      this.sound[i] = Math.sqrt(GAMMA * R_AIR * t);
-      tPrev = t;
-      hPrev = hNow;
+      this.density[i] = pressure[i] / (R_AIR * temps[i]);
+      this.sound[i] = Math.sqrt(GAMMA * R_AIR * temps[i]);
     }
   }
 
@@ -105,7 +124,7 @@ export class AirModel implements Air {
 }
 
 function interpolate(table: Float64Array, height: number, last: number): number {
-  const x = height * INV_STEP;
+  const x = height * INV_STEP + BELOW_NODES;
   if (!(x > 0)) return table[0];
   if (x >= last) return table[last];
   const i = x | 0;
