@@ -7,7 +7,7 @@ import { summaryParts } from '../analysis/summary.js';
 import { writeContoursGeoJSON, writeKeepOutGeoJSON, landingsGeoJSONChunks } from '../analysis/geojsonWriters.js';
 import { writeAreasCsv } from '../analysis/areasCsv.js';
 import { writeKml } from '../analysis/kml.js';
-import { loadScenarioFile } from '../scenario/file.js';
+import { loadScenarioFileWithTerrain } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
 import { MAX_PAD_LATITUDE } from '../scenario/schema.js';
 import { CAUTION } from '../report/caution.js';
@@ -102,7 +102,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   let scenarioHashText: string | undefined;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
-    const loaded = loadScenarioFile(values.scenario as string, { allowOutsideFiles: values['allow-outside-files'] === true });
+    const loaded = await loadScenarioFileWithTerrain(values.scenario as string, { allowOutsideFiles: values['allow-outside-files'] === true });
     inputs.push(...loaded.inputFiles);
     site = loaded.scenario.site;
     run = loaded.scenario.run;

@@ -35,13 +35,16 @@ export async function checkCommand(args: string[]): Promise<number> {
   const path = onePositional('check', positionals, 'scenario file');
   const maxSamples = integerOption('max-samples', values['max-samples'] as string | undefined, 1, Number.MAX_SAFE_INTEGER);
   displayChoices(values);
-  const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
+  const loaded = await loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const sc = loaded.scenario;
   const u = unitFormatter(displayChoices(values, sc.run).units);
   // Show the air the flight will actually meet, also where the file left it to the standard atmosphere.
-  const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure);
+  const air = new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure, sc.weather.air);
+  const t = sc.site.terrain;
   const shown = {
     ...sc,
+    // The terrain grid is summarised: its heights are thousands of numbers.
+    site: t ? { ...sc.site, terrain: { file: t.file, east0: t.east0, north0: t.north0, step: t.step, nx: t.nx, ny: t.ny, lowest: Math.min(...t.heights), highest: Math.max(...t.heights) } } : sc.site,
     weather: { ...sc.weather, temperature: air.padTemperature, pressure: air.padPressure },
   };
   process.stdout.write(JSON.stringify(shown, null, 2) + '\n');

@@ -17,6 +17,7 @@ export const COMMANDS: Record<string, Command> = {
   merge: { summary: 'put the shards of a study (strewn run --shard K/N) together into one results folder', run: async (args) => (await import('./merge.js')).mergeCommand(args) },
   event: { summary: 'fly every item of an event plan and add up zones, landings and casualties for the whole event', run: async (args) => (await import('./event.js')).eventCommand(args) },
   compare: { summary: 'compare two results folders: zone area and reach, area chances and expected casualties, both zones on one map', run: async (args) => (await import('./compare.js')).compareCommand(args) },
+  forecast: { summary: 'read a GRIB2 forecast at the pad and print (or write) the wind and air profile', run: async (args) => (await import('./forecast.js')).forecastCommand(args) },
   envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', run: async (args) => (await import('./envelope.js')).envelopeCommand(args) },
 };
 

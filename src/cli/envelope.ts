@@ -9,9 +9,14 @@ import { unitFormatter, type UnitFormatter } from '../report/format-number.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 import { windEnvelope } from '../envelope/envelope.js';
 import type { Aim } from '../envelope/aim.js';
+import { writeEnvelopeCsv, writeEnvelopeJson, writeWindowCsv } from '../envelope/writers.js';
+import { envelopeChart, forecastVerdict, judgeWindow } from '../envelope/chart.js';
+import { readFileSync } from 'node:fs';
+import { dirname } from 'node:path';
+import { hourlyWinds } from '../forecast/window.js';
+import { resolveRelativePath } from '../scenario/thrust.js';
+import { isoTime } from '../scenario/time.js';
 import type { Scenario } from '../scenario/types.js';
-import { writeEnvelopeCsv, writeEnvelopeJson } from '../envelope/writers.js';
-import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
 import { envelopePdf } from '../envelope/envelope-pdf.js';
 import { CAUTION } from '../report/caution.js';
 import { isoSeconds, runDate } from '../report/sheet/review-facts.js';
@@ -32,6 +37,10 @@ building. Reports, per direction, the highest speed at which every test holds an
 fails first above it. Writes envelope.json, envelope.csv, envelope.svg (the polar chart) and
 envelope.pdf (a page in the review sheet's style; \`strewn sheet <results> --envelope <this folder>\`
 adds the same page to a run's review sheet).
+
+With weather.forecast, the forecast wind at the reference height for every hour of the chosen
+day (UTC) within the file's steps is judged against the limits (the launch window): printed,
+drawn on the chart and written to window.csv.
 
 Options:
   --directions A:B:S  wind directions in degrees, start:stop:step (default 0:330:30)
@@ -89,7 +98,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
-  const loaded = loadForCommand(path, undefined, values['allow-outside-files'] === true);
+  const loaded = await loadForCommand(path, undefined, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const aim = aimOption(values.aim as string | undefined, values['max-tilt'] as string | undefined, scenario);
   const { units, paper } = displayChoices(values, scenario.run);
@@ -120,10 +129,13 @@ export async function envelopeCommand(args: string[]): Promise<number> {
       onCase: (done, planned) => bar.update({ done, total: planned, rate: (done * samples) / Math.max(1e-3, (Date.now() - started) / 1000) }),
     });
     bar.end();
+    const forecast = scenario.weather.forecast;
+    if (forecast) result.window = launchWindow(result, path, scenario);
     const computedAt = isoSeconds(runDate());
     const extra = { version: VERSION, scenarioHash: loaded.hash, computedAt, caution: CAUTION };
     out.write('envelope.json', writeEnvelopeJson(result, extra));
     out.write('envelope.csv', writeEnvelopeCsv(result));
+    if (result.window) out.write('window.csv', writeWindowCsv(result.window));
     out.write('envelope.svg', envelopeChart(result, { units }));
     out.write('envelope.pdf', envelopePdf({ envelope: result, scenarioHash: loaded.hash, version: VERSION, computedAt }, { paper, units }));
     out.commit();
@@ -189,6 +201,14 @@ export function parseSpeedGrid(text: string): { speeds: number[]; note?: string 
   return anyUnit ? { speeds } : { speeds, note: `--speeds '${text}' has no unit, so it was read in m/s (write e.g. '0:30:2 mph' for another unit)` };
 }
 
+/** The forecast's hours of the chosen day judged against the limits. */
+function launchWindow(result: Awaited<ReturnType<typeof windEnvelope>>, scenarioPath: string, scenario: Scenario): NonNullable<typeof result.window> {
+  const f = scenario.weather.forecast!;
+  const bytes = readFileSync(resolveRelativePath(dirname(scenarioPath), f.file));
+  const hours = hourlyWinds(bytes, scenario.site.pad, Date.parse(f.time), scenario.weather.wind.height, scenario.weather.wind.shear);
+  return judgeWindow(result, hours.map((h) => ({ time: isoTime(h.time), speed: h.speed, from: h.from })));
+}
+
 function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string, u: UnitFormatter): string {
   const lines = [`${e.name}: wind limits (${e.samples.toLocaleString('en')} samples per point, ${e.casesFlown} points flown in ${e.elapsed_s.toFixed(1)} s)`];
   for (const d of e.limits) {
@@ -197,6 +217,12 @@ function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: str
     lines.push(`  from ${String(d.from).padStart(3)}°  ${rail}${limit.padEnd(24)}${d.firstFailure.length ? `above it: ${d.firstFailure.join('; ')}` : ''}`);
   }
   lines.push(`  forecast     ${forecastVerdict(e, (v) => u.speed(v)).text}`);
+  if (e.window && e.window.length > 0) {
+    lines.push(`  launch window ${e.window[0].time.slice(0, 10)} (UTC, forecast wind at the reference height against the limits):`);
+    for (const h of e.window) {
+      lines.push(`    ${h.time.slice(11, 16)}  ${u.speed(h.speed).padStart(9)} from ${String(Math.round(h.from)).padStart(3)}°  ${h.inside ? 'inside' : 'OUTSIDE'}${h.limit === null ? '' : ` (limit about ${u.speed(h.limit)})`}`);
+    }
+  }
   lines.push(`  results      ${folder}`, '', `CAUTION: ${CAUTION}`, '');
   return lines.join('\n');
 }

@@ -86,7 +86,7 @@ interface RunSettings {
 
 async function runStudy(path: string, values: Record<string, unknown>, settings: RunSettings): Promise<number> {
   const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker } = settings;
-  const loaded = loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
+  const loaded = await loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const { units, paper } = displayChoices(values, scenario.run);
   const samples = samplesOption ?? scenario.run.samples;

@@ -1,12 +1,12 @@
-import { loadScenarioFile, type LoadedScenario } from '../scenario/file.js';
+import { loadScenarioFileWithTerrain, type LoadedScenario } from '../scenario/file.js';
 import { machWarnings, railExitSpeedWarnings } from '../scenario/warnings.js';
 import { apogeeWarnings } from '../scenario/plausibility.js';
 import { flyNominal } from '../dispersion/runner.js';
 import type { Issue } from '../scenario/types.js';
 
 /** Loads a scenario and adds the warnings only a flight can give (rail-exit speed). */
-export function loadForCommand(path: string, maxSamples?: number, allowOutsideFiles = false): LoadedScenario & { nominal: ReturnType<typeof flyNominal> } {
-  const loaded = loadScenarioFile(path, { maxSamples, allowOutsideFiles });
+export async function loadForCommand(path: string, maxSamples?: number, allowOutsideFiles = false): Promise<LoadedScenario & { nominal: ReturnType<typeof flyNominal> }> {
+  const loaded = await loadScenarioFileWithTerrain(path, { maxSamples, allowOutsideFiles });
   const nominal = flyNominal(loaded.scenario);
   const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed), ...machWarnings(loaded.scenario, nominal.maxMach), ...apogeeWarnings(nominal.apogee)];
   return { ...loaded, warnings, nominal };

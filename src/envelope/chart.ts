@@ -136,6 +136,14 @@ export function forecastVerdict(
   return { inside, limit, text };
 }
 
+/** Each hour's forecast wind judged against the limits, as in forecastVerdict. */
+export function judgeWindow(e: EnvelopeResult, hours: readonly { time: string; speed: number; from: number }[]): NonNullable<EnvelopeResult['window']> {
+  return hours.map((h) => {
+    const limit = limitAt(e, h.from);
+    return { ...h, limit: limit === null ? null : Math.round(limit * 100) / 100, inside: limit !== null && h.speed <= limit + 1e-9 };
+  });
+}
+
 /** Limit speed at any direction, interpolated between grid directions (wrapping round the compass). */
 export function limitAt(e: EnvelopeResult, from: number): number | null {
   const ds = e.limits.map((d) => ({ from: d.from, limit: d.limit ?? 0 }));

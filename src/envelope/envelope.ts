@@ -58,11 +58,26 @@ export interface EnvelopeResult {
   speeds: number[];
   method: 'bisection' | 'exhaustive';
   forecast: { from: number; speed: number };
+  /**
+   * The launch window (scenarios with weather.forecast): the forecast wind at the reference height
+   * for each hour of the day, judged against the limits. Absent without a forecast.
+   */
+  window?: WindowHour[];
   limits: DirectionLimit[];
   /** How the launcher was aimed (absent: fixed at the scenario's azimuth, as before aims existed). */
   aim?: Aim;
   casesFlown: number;
   elapsed_s: number;
+}
+
+export interface WindowHour {
+  /** ISO 8601 UTC. */
+  time: string;
+  speed: number;
+  from: number;
+  /** Limit at that direction (interpolated between grid directions), null outside the grid. */
+  limit: number | null;
+  inside: boolean;
 }
 
 /**

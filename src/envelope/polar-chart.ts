@@ -233,6 +233,25 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
     }),
   });
 
+  if (e.window && e.window.length > 0) {
+    // The launch window: one small square per forecast hour, joined in time order, labelled with
+    // the hour (UTC) every third hour; hollow when that hour's wind is outside the limits.
+    const points = e.window.map((h) => frame.point(h.from, h.speed));
+    shapes.push({
+      kind: 'group',
+      id: 'launch-window',
+      className: 'launch-window',
+      shapes: [
+        { kind: 'path', d: points.map(([x, y], k) => [k === 0 ? 'M' : 'L', x, y] as ['M' | 'L', number, number]), stroke: { color: ENVELOPE_STYLE.forecast, width: 0.7, dash: [1.5, 1.5] } },
+        ...e.window.flatMap((h, k): Shape[] => {
+          const [x, y] = points[k];
+          const hour = h.time.slice(11, 13);
+          const mark: Shape = { kind: 'rect', className: h.inside ? 'hour inside' : 'hour outside', data: { time: h.time, speed: String(h.speed), from: String(h.from) }, x: x - 2, y: y - 2, width: 4, height: 4, fill: h.inside ? { color: ENVELOPE_STYLE.forecast } : { color: '#ffffff' }, stroke: { color: ENVELOPE_STYLE.forecast, width: 1 } };
+          return Number(hour) % 3 === 0 ? [mark, { kind: 'text', className: 'hour-label', x: x + 3.5, y: y - 3, text: `${hour}h`, size: 6, font: 'regular', anchor: 'start', color: ENVELOPE_STYLE.forecast }] : [mark];
+        }),
+      ],
+    });
+  }
   const [fx, fy] = frame.point(e.forecast.from, e.forecast.speed);
   shapes.push({ kind: 'group', id: 'forecast', className: 'forecast', data: { from: String(e.forecast.from), speed: String(e.forecast.speed) }, shapes: forecastMarker(fx, fy) });
 
@@ -271,6 +290,12 @@ export function polarChartLegend(e: EnvelopeResult, forecastText: string): Legen
     swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'path', d: [['M', x, yMid], ['L', x + width, yMid]], stroke: CEILING_STROKE }] },
     text: 'about 9 m/s (20 mph) surface wind: the ceiling common practice sets for launches (no source; the local code governs)',
   });
+  if (e.window && e.window.length > 0) {
+    entries.push({
+      swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'rect', x: x + width / 2 - 2, y: yMid - 2, width: 4, height: 4, fill: { color: ENVELOPE_STYLE.forecast }, stroke: { color: ENVELOPE_STYLE.forecast, width: 1 } }] },
+      text: `forecast each hour of ${e.window[0].time.slice(0, 10)} UTC (hollow: outside the limits; the profile's shape is the chosen time's)`,
+    });
+  }
   entries.push({
     swatch: { kind: 'custom', draw: (x, yMid, width) => [{ kind: 'path', d: [['M', x, yMid], ['L', x + width, yMid]], stroke: { color: ENVELOPE_STYLE.ring, width: 0.6, dash: [2, 2.5] } }] },
     text: 'mean wind speed at the reference height',

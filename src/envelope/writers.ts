@@ -32,3 +32,10 @@ export function writeEnvelopeJson(e: EnvelopeResult, extra: Record<string, unkno
     ) + '\n'
   );
 }
+
+/** window.csv: the launch window, one row per forecast hour. */
+export function writeWindowCsv(window: NonNullable<EnvelopeResult['window']>): string {
+  const lines = ['time_utc,speed_m_s,from_deg,limit_speed_m_s,inside'];
+  for (const h of window) lines.push([h.time, h.speed, h.from, h.limit ?? '', h.inside ? 'yes' : 'no'].join(','));
+  return lines.join('\n') + '\n';
+}

@@ -10,6 +10,7 @@ import type { FlightInputs } from './inputs.js';
 import { FlightStatus } from './status.js';
 import { RecoverySchedule } from './recovery-schedule.js';
 import { locateCrossing } from './locate-crossing.js';
+import { GroundHeight } from './ground.js';
 import { launchDirection } from './launch-direction.js';
 import { aeroTable, finMachFactor, massLayout } from '../physics/aero.js';
 
@@ -132,6 +133,8 @@ export class FlightModel implements OdeSystem {
   private cosMis = 1;
 
   private readonly recovery: RecoverySchedule;
+  /** Ground height above the pad under a point (terrain, or level ground). */
+  private readonly ground: GroundHeight;
 
   // Per-sample configuration read by `derivative`.
   private dryMass = 1;
@@ -156,7 +159,7 @@ export class FlightModel implements OdeSystem {
     this.scenario = scenario;
     this.options = { ...DEFAULT_FLIGHT_OPTIONS, ...options };
     const weather = scenario.weather;
-    this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure);
+    this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure, weather.air);
     this.earth = this.options.earth ?? new EarthModel(scenario.site.pad.lat, scenario.site.pad.elevation);
     this.wind = new MeanWind(weather.wind);
     this.gusts = new GustField();
@@ -164,6 +167,7 @@ export class FlightModel implements OdeSystem {
     this.motor = scenario.vehicle.kind === 'rocket' && scenario.vehicle.motor ? new MotorModel(scenario.vehicle.motor) : null;
     this.stopAtKnots = this.motor !== null && this.motor.knots <= 256;
     this.referenceArea = scenario.vehicle.referenceArea;
+    this.ground = new GroundHeight(scenario.site.terrain);
     this.recovery = new RecoverySchedule(scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery);
     const v = scenario.vehicle;
     this.rigid = v.kind === 'rocket' && v.shape !== undefined && v.diameter !== undefined && v.motor?.length !== undefined;
@@ -534,6 +538,8 @@ export class FlightModel implements OdeSystem {
       if (!allFinite(yNew)) return this.fail(out, FlightStatus.NON_FINITE, t, steps);
       const tNew = hitsClock ? tNext : t + hTry;
       const yPrevZ = y[2];
+      // Height above the ground under the object (the pad's level without terrain).
+      const yPrevG = y[2] - this.ground.at(y[0], y[1]);
       const yPrevVz = y[5];
       const yPrevS = this.onRail ? y[0] * this.railX + y[1] * this.railY + y[2] * this.railZ : 0;
       solver.accept();
@@ -561,9 +567,11 @@ export class FlightModel implements OdeSystem {
           tEvent = t;
         }
         // Ground contact from the very first step: a flight that starts on the ground and moves
-        // down lands where it first goes below it (at once), rather than flying underground.
-        if ((y[2] <= 0 && yPrevZ > 0) || (y[2] < 0 && yPrevZ === 0)) {
-          const te = this.locate(EV_GROUND, 0, t, tNew, yPrevZ, y[2]);
+        // down lands where it first goes below it (at once), rather than flying underground. The
+        // ground is the terrain under the object (level at the pad without terrain).
+        const g = y[2] - this.ground.at(y[0], y[1]);
+        if ((g <= 0 && yPrevG > 0) || (g < 0 && yPrevG === 0)) {
+          const te = this.locate(EV_GROUND, 0, t, tNew, yPrevG, g);
           if (te < tEvent || (te === tEvent && event !== EV_APOGEE)) { event = EV_GROUND; tEvent = te; }
         }
         if (apogeeReached) {
@@ -595,7 +603,7 @@ export class FlightModel implements OdeSystem {
       t = tEvent;
       if (ye[2] > out.apogee) out.apogee = ye[2];
       if (event === EV_GROUND) {
-        ye[2] = 0;
+        ye[2] = this.ground.at(ye[0], ye[1]);
         if (track !== null) track(t, ye);
         out.east = ye[0];
         out.north = ye[1];
@@ -721,6 +729,8 @@ export class FlightModel implements OdeSystem {
         );
       case EV_APOGEE:
         return s.denseComponent(5, t);
+      case EV_GROUND:
+        return s.denseComponent(2, t) - this.ground.at(s.denseComponent(0, t), s.denseComponent(1, t));
       default:
         return s.denseComponent(2, t) - level;
     }

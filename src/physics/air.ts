@@ -1,5 +1,5 @@
 import { standardAtmosphere, geopotentialAltitude, emptyAirState, hydrostaticPressure } from './atmosphere.js';
-import { GAMMA, R_AIR } from './constants.js';
+import { G0, GAMMA, R_AIR } from './constants.js';
 
 /**
  * The air a flight meets: the 1976 standard atmosphere shifted so that it matches the temperature
@@ -43,7 +43,14 @@ export class AirModel implements Air {
   private readonly sound: Float64Array;
   private readonly last: number;
 
-  constructor(padElevation: number, temperature?: number, pressure?: number) {
+  /**
+   * `rows` (optional, from a forecast): temperature by altitude above the pad, sorted, the first at
+   * the pad. Then the temperature is linear between rows; above the top row it follows the standard
+   * atmosphere's shape offset to meet that row, below the pad the lowest layer's lapse rate; pressure
+   * follows from the hydrostatic equation from the pad's pressure, with g0 over geopotential height
+   * (trapezoids in 1/T on the 10 m grid).
+   */
+  constructor(padElevation: number, temperature?: number, pressure?: number, rows?: readonly { altitude: number; temperature: number }[]) {
     const padH = geopotentialAltitude(padElevation);
     const std = standardAtmosphere(padH);
     this.padElevation = padElevation;
@@ -55,6 +62,10 @@ export class AirModel implements Air {
     this.sound = new Float64Array(n);
     this.last = n - 1;
     const s = emptyAirState();
+    if (rows !== undefined && rows.length > 0) {
+      this.tabulateFromRows(rows, n, s);
+      return;
+    }
     for (let i = 0; i < n; i++) {
       const h = geopotentialAltitude(padElevation + (i - BELOW_NODES) * STEP);
       standardAtmosphere(h, s);
@@ -62,6 +73,42 @@ export class AirModel implements Air {
       const p = hydrostaticPressure(this.padPressure, padH, h, dT);
       this.density[i] = p / (R_AIR * t);
       this.sound[i] = Math.sqrt(GAMMA * R_AIR * t);
+    }
+  }
+
+  private tabulateFromRows(rows: readonly { altitude: number; temperature: number }[], n: number, s: ReturnType<typeof emptyAirState>): void {
+    const top = rows[rows.length - 1];
+    const topStd = standardAtmosphere(geopotentialAltitude(this.padElevation + top.altitude)).temperature;
+    const padT = this.padTemperature;
+    const temperatureAt = (h: number): number => {
+      if (rows.length === 1) return padT;
+      if (h <= rows[0].altitude) {
+        const a = rows[0], b = rows[1];
+        return padT + (h - a.altitude) * ((b.temperature - a.temperature) / (b.altitude - a.altitude));
+      }
+      for (let k = 1; k < rows.length; k++) {
+        if (h <= rows[k].altitude) {
+          const a = k === 1 ? { altitude: rows[0].altitude, temperature: padT } : rows[k - 1], b = rows[k];
+          return a.temperature + ((h - a.altitude) / (b.altitude - a.altitude)) * (b.temperature - a.temperature);
+        }
+      }
+      return standardAtmosphere(geopotentialAltitude(this.padElevation + h), s).temperature + (top.temperature - topStd);
+    };
+    const heightOf = (i: number) => (i - BELOW_NODES) * STEP;
+    const pressure = new Float64Array(n);
+    const temps = new Float64Array(n);
+    for (let i = 0; i < n; i++) temps[i] = temperatureAt(heightOf(i));
+    // Integrate up and down from the pad's node.
+    pressure[BELOW_NODES] = this.padPressure;
+    const layer = (i: number, j: number) => {
+      const dh = geopotentialAltitude(this.padElevation + heightOf(j)) - geopotentialAltitude(this.padElevation + heightOf(i));
+      return Math.exp((-G0 * dh * (1 / temps[i] + 1 / temps[j])) / (2 * R_AIR));
+    };
+    for (let i = BELOW_NODES + 1; i < n; i++) pressure[i] = pressure[i - 1] * layer(i - 1, i);
+    for (let i = BELOW_NODES - 1; i >= 0; i--) pressure[i] = pressure[i + 1] * layer(i + 1, i);
+    for (let i = 0; i < n; i++) {
+      this.density[i] = pressure[i] / (R_AIR * temps[i]);
+      this.sound[i] = Math.sqrt(GAMMA * R_AIR * temps[i]);
     }
   }
 

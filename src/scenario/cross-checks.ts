@@ -15,6 +15,7 @@ export function crossCheck(raw: Record<string, unknown>, kind: VehicleKind | und
     ...releaseRouteChecks(raw.launch, kind),
     ...gustChecks(raw.weather),
     ...profileChecks(raw.weather),
+    ...forecastChecks(raw.weather),
     ...uncertaintyChecks(raw, kind),
   ];
 }
@@ -208,6 +209,26 @@ function gustChecks(weather: unknown): Issue[] {
   const gust = convertQuantity(wind.gust, 'speed');
   if (!mean.ok || !gust.ok || gust.value >= mean.value) return [];
   return [{ path: 'weather.wind.gust', message: `${gust.shown} is below the mean speed ${mean.shown}; the gust is the peak speed, at least the mean` }];
+}
+
+/**
+ * With `weather.forecast` the wind's speed, direction and profile come from the file; without one
+ * the wind must be given.
+ */
+function forecastChecks(weather: unknown): Issue[] {
+  if (!isRecord(weather)) return [];
+  const wind = weather.wind;
+  if (weather.forecast !== undefined) {
+    if (!isRecord(wind)) return [];
+    return (['speed', 'from', 'profile'] as const)
+      .filter((key) => wind[key] !== undefined)
+      .map((key) => ({ path: `weather.wind.${key}`, message: 'comes from weather.forecast; remove it here, or remove the forecast' }));
+  }
+  if (wind === undefined) return [{ path: 'weather.wind', message: 'missing (required) unless weather.forecast gives the wind' }];
+  if (!isRecord(wind)) return [];
+  return (['speed', 'from'] as const)
+    .filter((key) => wind[key] === undefined)
+    .map((key) => ({ path: `weather.wind.${key}`, message: `missing (required); expected ${key === 'speed' ? 'a speed' : 'an angle'}, unless weather.forecast gives the wind` }));
 }
 
 /** Profile rows may come in any order, but two rows at one altitude would make the wind there ambiguous. */

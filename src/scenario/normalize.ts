@@ -241,11 +241,12 @@ function normalizeStage(stage: ParsedStage, mass: number): RecoveryStage {
 }
 
 function normalizeWeather(weather: ParsedWeather): Weather {
-  const w = weather.wind;
+  // The cross-checks guarantee a speed and a direction, and load.ts fills them from a forecast.
+  const w = weather.wind ?? {};
   const out: Weather = {
     wind: {
-      speed: w.speed,
-      from: normalizeDirection(w.from),
+      speed: w.speed!,
+      from: normalizeDirection(w.from!),
       height: w.height ?? DEFAULT_WIND_HEIGHT,
       shear: w.shear ?? DEFAULT_SHEAR,
     },

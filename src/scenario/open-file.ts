@@ -24,6 +24,10 @@ export const SIZE_LIMITS = {
   scenario: 64 * 1024 * 1024,
   /** Recorded landings: about 4 million rows of a strewn landings.csv; Node strings end near 512 MB. */
   landingsCsv: 400 * 1024 * 1024,
+  /** A GRIB2 forecast cut to a region (a global 0.25° file of every field is far larger). */
+  forecast: 512 * 1024 * 1024,
+  /** A GeoTIFF elevation model of a site and its surroundings. */
+  terrain: 512 * 1024 * 1024,
 } as const;
 
 export class InputFileError extends Error {
@@ -39,6 +43,11 @@ function mebibytes(bytes: number): string {
 
 /** Reads a regular file of at most `maxBytes` as UTF-8 text. */
 export function readRegularFile(path: string, maxBytes: number): string {
+  return Buffer.from(readRegularFileBytes(path, maxBytes)).toString('utf8');
+}
+
+/** Reads a regular file of at most `maxBytes` (FIFOs, devices and sockets refused) as bytes. */
+export function readRegularFileBytes(path: string, maxBytes: number): Uint8Array {
   let fd: number;
   try {
     // O_NONBLOCK: opening a FIFO without a writer returns at once instead of waiting.
@@ -70,7 +79,7 @@ export function readRegularFile(path: string, maxBytes: number): string {
       length += n;
     }
     if (length > maxBytes) throw new InputFileError(`it is more than the ${mebibytes(maxBytes)} such a file may have`);
-    return buffer.subarray(0, length).toString('utf8');
+    return buffer.subarray(0, length);
   } finally {
     closeSync(fd);
   }

@@ -30,6 +30,7 @@ import {
   type LeafResult,
   type PathPart,
 } from './fields.js';
+import { parseValidTime } from './time.js';
 import { shapeIssues } from './shape-checks.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
 import { rawJsonIssues } from './raw-guards.js';
@@ -97,6 +98,7 @@ const siteSchema = strict({
     )
     .optional(),
   basemap: featureCollection,
+  terrain: text('a GeoTIFF elevation model path in quotes, relative to the scenario file').optional(),
 });
 
 const commonVehicle = {
@@ -217,15 +219,28 @@ const profileRowSchema = strict({
   from: quantity('angle'),
 });
 
+/** `weather.forecast`: a GRIB2 file and the valid time to read it at (see src/forecast). */
+const forecastSchema = strict({
+  file: text('a GRIB2 file path in quotes, relative to the scenario file'),
+  time: leaf((value): LeafResult<number> => {
+    const t = typeof value === 'string' ? parseValidTime(value) : NaN;
+    if (Number.isFinite(t)) return ok(t);
+    return fail(`${describeValue(value)} is not a time; expected an ISO 8601 date-time with its zone, e.g. '2026-06-01T14:00Z' or '2026-06-01T16:00+02:00'`);
+  }),
+  window: optionalQuantity('time', POSITIVE),
+});
+
 const weatherSchema = strict({
+  // Speed and direction come from the forecast when there is one (cross-checks.ts).
   wind: strict({
-    speed: quantity('speed', NOT_NEGATIVE),
-    from: quantity('angle'),
+    speed: optionalQuantity('speed', NOT_NEGATIVE),
+    from: optionalQuantity('angle'),
     gust: optionalQuantity('speed', NOT_NEGATIVE),
     height: optionalQuantity('length', POSITIVE),
     shear,
     profile: z.array(profileRowSchema).min(1).optional(),
-  }),
+  }).optional(),
+  forecast: forecastSchema.optional(),
   // The range is wide enough for any launch site on Earth and narrow enough to catch a missing unit.
   temperature: optionalQuantity('temperature', { min: 173.15, max: 343.15, hint: temperatureHint }),
   pressure: optionalQuantity('pressure', { min: 30_000, max: 110_000, hint: pressureHint }),

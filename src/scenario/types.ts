@@ -175,6 +175,30 @@ export interface Weather {
   temperature?: number;
   /** Air pressure at the pad, Pa; absent means the standard atmosphere at the pad's elevation. */
   pressure?: number;
+  /**
+   * Temperature (K) and pressure (Pa) by altitude above the pad (m), sorted, from a forecast; the
+   * air model takes its temperature from these rows instead of the standard atmosphere's shape.
+   */
+  air?: { altitude: number; temperature: number; pressure: number }[];
+  /** Where the wind and air came from when `weather.forecast` was given. */
+  forecast?: ForecastSource;
+}
+
+export interface ForecastSource {
+  /** The file as written in the scenario. */
+  file: string;
+  /** Valid time asked for, ISO 8601 UTC. */
+  time: string;
+  /** Forecast steps interpolated between (ISO 8601 UTC). */
+  steps: string[];
+  /** Reference (analysis) time of the forecast run, ISO 8601 UTC. */
+  referenceTime: string;
+  /** Ensemble members averaged (0 for a deterministic forecast). */
+  members: number;
+  /** Half-width of the time window whose steps entered the spread, s. */
+  window?: number;
+  /** Profiles the wind spread came from, and the spread; absent when there was only one. */
+  spread?: { profiles: number; speedSd: number; fromSdDeg: number; layerTop: number };
 }
 
 /**
@@ -283,6 +307,24 @@ export interface Site {
   areas: Area[];
   /** GeoJSON FeatureCollection, passed through untouched. */
   basemap?: { type: 'FeatureCollection'; features: unknown[] };
+  /** The ground from `site.terrain` (a GeoTIFF elevation model); absent means level ground. */
+  terrain?: TerrainGrid;
+}
+
+/**
+ * Ground height above the pad's elevation (m) on a regular east/north grid (m from the pad):
+ * node (i, j) at (east0 + i step, north0 + j step), row-major from the south-west; bilinear
+ * between nodes and held at the edge outside.
+ */
+export interface TerrainGrid {
+  /** The GeoTIFF as written in the scenario. */
+  file: string;
+  east0: number;
+  north0: number;
+  step: number;
+  nx: number;
+  ny: number;
+  heights: number[];
 }
 
 export interface Scenario {

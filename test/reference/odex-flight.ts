@@ -43,7 +43,7 @@ export interface ReferenceLanding {
 }
 
 export function odexFlight(sc: Scenario, options: ReferenceOptions): ReferenceLanding {
-  const air = options.air ?? new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure);
+  const air = options.air ?? new AirModel(sc.site.pad.elevation, sc.weather.temperature, sc.weather.pressure, sc.weather.air);
   const wind = new MeanWind(sc.weather.wind);
   const gusts = new GustField();
   gusts.reset(options.sigmaW ?? 0, options.normal ?? (() => 0));

@@ -12,7 +12,8 @@ import type { Page, Shape } from './display-list.js';
 import { wrapText, CAP_HEIGHT } from './fonts.js';
 import { aroundPoint, LabelPlacer, type Candidate, type LabelLine } from './labels.js';
 import { layoutLegend, padSymbol, releaseSymbol, type LegendEntry } from './legend.js';
-import { basemapShapes, lineLabelCandidates, mainRing, pointsAlong, polygonsInMetres, polygonsPath, readBasemap, type Metres, type PagePoint } from './map-layers.js';
+import { terrainContours } from '../../terrain/contours.js';
+import { basemapShapes, linesPath, lineLabelCandidates, mainRing, pointsAlong, polygonsInMetres, polygonsPath, readBasemap, type Metres, type PagePoint } from './map-layers.js';
 import { northArrow, scaleBar, windIndicator } from './map-furniture.js';
 import { boundsOfPoints, chooseExtent, fitView, intersection, isEmpty, overlaps, union, type Bounds, type MapView } from './map-view.js';
 import { lengthLabel, roundLengthAtMost } from './nice-length.js';
@@ -101,6 +102,20 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   // ---- layers inside the frame
   const inside: Shape[] = [];
   inside.push(...basemapShapes(view, basemap));
+  if (scenario.site.terrain) {
+    // Terrain as thin contour lines under the results: every fifth line a little heavier.
+    const terrain = terrainContours(scenario.site.terrain);
+    const major = terrain.lines.filter((l) => Math.abs(l.level / terrain.interval) % 5 < 1e-6);
+    const minor = terrain.lines.filter((l) => !major.includes(l));
+    inside.push({
+      kind: 'group',
+      id: 'terrain',
+      shapes: [
+        { kind: 'path', className: 'terrain-contour', d: linesPath(view, minor.map((l) => l.points)), stroke: TERRAIN_STROKE },
+        { kind: 'path', className: 'terrain-contour major', d: linesPath(view, major.map((l) => l.points)), stroke: { ...TERRAIN_STROKE, width: TERRAIN_STROKE.width * 2 } },
+      ],
+    });
+  }
   if (boundary) inside.push({ kind: 'path', id: 'site-boundary', className: 'boundary', d: polygonsPath(view, boundary), stroke: BOUNDARY_STROKE, evenOdd: true });
   const rings = rangeRings(view, units.system);
   inside.push(...rings.shapes);
@@ -287,6 +302,9 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
 }
 
 /** Area kinds in the order their labels are placed: where people are first. */
+/** Terrain contour lines: thin warm brown, under every result layer. */
+const TERRAIN_STROKE = { color: '#a57f5a', width: 0.35 };
+
 const KIND_PRIORITY = ['spectators', 'building', 'parking', 'road', 'other', 'water'];
 
 /** A box in metres as a box on the page. */
@@ -339,6 +357,10 @@ function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: s
   if (hasRelease) entries.push({ swatch: { kind: 'release' }, text: 'Release point' });
   entries.push({ swatch: { kind: 'line', stroke: RING_STROKE }, text: WORDS.rings });
   if (input.scenario.site.boundary) entries.push({ swatch: { kind: 'line', stroke: BOUNDARY_STROKE }, text: WORDS.boundary });
+  if (input.scenario.site.terrain) {
+    const interval = terrainContours(input.scenario.site.terrain).interval;
+    if (interval > 0) entries.push({ swatch: { kind: 'line', stroke: TERRAIN_STROKE }, text: `Terrain contours every ${units.length(interval)} (heavier every ${units.length(5 * interval)}), from ${input.scenario.site.terrain.file}` });
+  }
   for (const kind of Object.keys(AREA_STYLES)) {
     if (!areaKinds.has(kind)) continue;
     const st = areaStyle(kind);
