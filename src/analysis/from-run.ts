@@ -23,6 +23,8 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
     apogee: new Float64Array(landed),
     flightTime: new Float64Array(landed),
     impactSpeed: new Float64Array(landed),
+    impactAngle: new Float64Array(landed),
+    impactEnergy: new Float64Array(landed),
   };
   let j = 0;
   for (let i = 0; i < run.count; i++) {
@@ -35,6 +37,9 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
     set.apogee[j] = run.apogee[i];
     set.flightTime[j] = run.flightTime[i];
     set.impactSpeed[j] = run.impactSpeed[i];
+    set.impactAngle[j] = run.impactAngle[i];
+    // ½ m v² with the mass that lands (without propellant for rockets).
+    set.impactEnergy[j] = 0.5 * run.impactMass[i] * run.impactSpeed[i] * run.impactSpeed[i];
     j++;
   }
   return set;

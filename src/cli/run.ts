@@ -10,6 +10,7 @@ import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
+import { DEFAULT_STABLE_CAP, STABLE_TOLERANCE, farthestReach, untilStable } from '../risk/until-stable.js';
 import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
@@ -29,13 +30,19 @@ Options:
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
+  --until-stable    fly again with twice the samples, round after round, until the farthest
+                    reach of the individual-risk line at risk.criteria.individual (or the
+                    smallest risk level) moves less than 2 % between rounds; the results are
+                    those of the last round
+  --stable-cap N    most samples --until-stable flies in one round (default ${DEFAULT_STABLE_CAP.toLocaleString('en')});
+                    it stops there and says so
   -h, --help        this help
 
 Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
 export async function runCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' } });
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -46,6 +53,9 @@ export async function runCommand(args: string[]): Promise<number> {
   const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
   const seedOption = values.seed as string | undefined;
   if (seedOption !== undefined && seedOption.length === 0) throw new UsageError('--seed: expected a non-empty text');
+  const stableCap = integerOption('stable-cap', values['stable-cap'] as string | undefined, 1, maxSamples) ?? Math.min(DEFAULT_STABLE_CAP, maxSamples);
+  const untilStableWanted = values['until-stable'] === true;
+  if (values['stable-cap'] !== undefined && !untilStableWanted) throw new UsageError('--stable-cap: only means something with --until-stable');
   const quiet = values.quiet === true;
   const json = values.json === true;
 
@@ -61,9 +71,36 @@ export async function runCommand(args: string[]): Promise<number> {
   const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
   try {
-    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
-    bar.end();
-    const { set, analysis, summary } = studyOutcome(scenario, loaded.hash, run, loaded.warnings);
+    const study = async (n: number) => {
+      const run = await runInPool({ scenario, samples: n, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
+      bar.end();
+      return studyOutcome(scenario, loaded.hash, run, loaded.warnings);
+    };
+    let outcome: Awaited<ReturnType<typeof study>>;
+    if (untilStableWanted) {
+      const stable = await untilStable(samples, stableCap, async (n) => {
+        const o = await study(n);
+        return { outcome: o, reach: farthestReach(o.analysis?.risk) };
+      }, (round) => {
+        if (!quiet && !json) {
+          const moved = round.moved === null ? '' : `, moved ${(round.moved * 100).toFixed(1)} %`;
+          process.stderr.write(`round: ${round.samples.toLocaleString('en')} samples, line reaches ${round.reach_m.toFixed(1)} m${moved}\n`);
+        }
+      });
+      outcome = stable.outcome;
+      if (outcome.summary.risk) outcome.summary.risk.untilStable = { rounds: stable.rounds, stopped: stable.stopped, tolerance: STABLE_TOLERANCE, cap: stableCap };
+      if (!quiet && !json) {
+        const last = stable.rounds[stable.rounds.length - 1];
+        process.stderr.write(
+          stable.stopped === 'stable'
+            ? `stable: the line's farthest reach moved less than ${STABLE_TOLERANCE * 100} % at ${last.samples.toLocaleString('en')} samples\n`
+            : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line's reach settled (--stable-cap raises it)\n`,
+        );
+      }
+    } else {
+      outcome = await study(samples);
+    }
+    const { set, analysis, summary } = outcome;
     for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
     // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
     // event loop: two turns (one is not enough) let it reach its handler; honour it before the

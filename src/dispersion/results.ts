@@ -18,6 +18,8 @@ export function assembleChunks(samples: number, chunks: readonly ChunkResult[], 
     all.apogee.set(c.apogee, c.start);
     all.flightTime.set(c.flightTime, c.start);
     all.impactSpeed.set(c.impactSpeed, c.start);
+    all.impactAngle.set(c.impactAngle, c.start);
+    all.impactMass.set(c.impactMass, c.start);
     all.mode.set(c.mode, c.start);
     all.status.set(c.status, c.start);
     all.steps.set(c.steps, c.start);

@@ -125,7 +125,7 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
 
 /** A worker that answers with the wrong samples must not slip through into the results. */
 function checkChunk(chunk: ChunkResult, start: number, count: number): void {
-  const arrays = [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.mode, chunk.status, chunk.steps];
+  const arrays = [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.impactAngle, chunk.impactMass, chunk.mode, chunk.status, chunk.steps];
   if (chunk.start !== start || chunk.count !== count || arrays.some((a) => a.length !== count)) {
     throw new Error(`worker answered samples ${chunk.start}+${chunk.count} (arrays of ${arrays.map((a) => a.length).join('/')}) for ${start}+${count}`);
   }

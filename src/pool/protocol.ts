@@ -55,7 +55,7 @@ export type PoolWorkerFactory = () => PoolWorker;
 
 /** The typed arrays of a chunk, listed so they can be handed over without a copy. */
 export function chunkBuffers(chunk: ChunkResult): ArrayBuffer[] {
-  return [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.mode, chunk.status, chunk.steps].map(
+  return [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.impactAngle, chunk.impactMass, chunk.mode, chunk.status, chunk.steps].map(
     (array) => array.buffer as ArrayBuffer,
   );
 }

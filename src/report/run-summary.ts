@@ -8,6 +8,7 @@ import type { Issue, Scenario } from '../scenario/types.js';
 import { VERSION } from '../version.js';
 import { CAUTION } from './caution.js';
 import type { StudySensitivity } from '../sensitivity/study.js';
+import { riskSummary, type RiskSummary } from '../risk/index.js';
 
 export interface Spread5 {
   mean: number;
@@ -32,6 +33,8 @@ export interface RunSummary extends SummaryParts {
   modes: { name: string; probability: number; samples: number; landed: number }[];
   /** What drives the spread of the landings (absent when the scenario has no spreads). */
   sensitivity?: StudySensitivity;
+  /** Risk to people, per flight (scenario-format.md, "Results"). */
+  risk?: RiskSummary;
   scenarioWarnings: string[];
   caution: string;
 }
@@ -109,6 +112,7 @@ export function buildRunSummary(
     })),
     ...parts,
     ...(sensitivity ? { sensitivity } : {}),
+    ...(analysis?.risk ? { risk: riskSummary(analysis.risk) } : {}),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };

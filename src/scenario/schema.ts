@@ -29,6 +29,7 @@ import {
   type LeafResult,
   type PathPart,
 } from './fields.js';
+import { casualtyTable, peopleDensity, perFlight, riskLevels, shelteredShare } from './risk-fields.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
 
 /**
@@ -80,6 +81,8 @@ const siteSchema = strict({
         kind: oneOf(AREA_KINDS),
         geometry: polygon,
         people: headCount,
+        density: peopleDensity,
+        sheltered: shelteredShare,
       }),
     )
     .optional(),
@@ -190,6 +193,16 @@ const runSchema = (cap: number) =>
     }).optional(),
   });
 
+const riskSchema = strict({
+  casualtyEnergy: optionalQuantity('energy', NOT_NEGATIVE),
+  casualtyProbability: casualtyTable,
+  personRadius: optionalQuantity('length', POSITIVE),
+  personHeight: optionalQuantity('length', POSITIVE),
+  objectRadius: optionalQuantity('length', POSITIVE),
+  levels: riskLevels,
+  criteria: strict({ individual: perFlight, collective: perFlight }).optional(),
+});
+
 /** Every top-level field; vehicle and launch are parsed on their own once vehicle.kind is known. */
 const topSchema = (cap: number) =>
   strict({
@@ -205,6 +218,7 @@ const topSchema = (cap: number) =>
     uncertainty: strict(uncertaintyShape()).optional(),
     failures: z.array(failureSchema).optional(),
     run: runSchema(cap).optional(),
+    risk: riskSchema.optional(),
   });
 
 // ---------------------------------------------------------------------------------------------
