@@ -11,6 +11,9 @@ import { loadScenarioFile } from '../scenario/file.js';
 import type { RunSettings, Site } from '../scenario/types.js';
 import { CAUTION } from '../report/caution.js';
 import { VERSION } from '../version.js';
+import { riskSettings, riskSummary, type RiskSettings } from '../risk/index.js';
+import { writeRiskGeoJSON } from '../risk/geojson.js';
+import { riskLinesText } from '../report/risk-text.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
 import { UsageError } from './errors.js';
@@ -21,6 +24,9 @@ Draws probability contours, the keep-out zone and area figures from landing poin
 elsewhere (tracker positions, recovered rockets, another tool's output). The CSV needs a header
 and either east_m,north_m (metres from the pad) or lat,lon (WGS 84 degrees); optional columns
 mode (a name) and weight (a positive number). A landings.csv from strewn run reads back as is.
+With --scenario and impact_energy_J (or impact_speed_m_s and mass_kg) columns, and optionally
+impact_angle_deg (vertical when absent), it also gives the risk to people with the scenario's
+risk settings: individual-risk lines (risk.geojson), standing distances and expected casualties.
 
 Options:
   --pad LAT,LON[,ELEV]  the pad in degrees (and metres above sea level)
@@ -67,11 +73,13 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   const path = onePositional('analyze', positionals, 'landings CSV file');
   let site: Site;
+  let risk: RiskSettings | undefined;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
     const loaded = loadScenarioFile(values.scenario as string);
     site = loaded.scenario.site;
     run = loaded.scenario.run;
+    risk = riskSettings(loaded.scenario);
   } else if (values.pad !== undefined) {
     const [lat, lon, elevation = 0] = numbers('pad', values.pad as string, [2, 3]);
     if (Math.abs(lat) > 90) throw new UsageError(`--pad: latitude ${lat} is outside −90 to 90`);
@@ -113,7 +121,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), values.force === true);
   try {
-    const analysis = analyze(set, site, run);
+    const analysis = analyze(set, site, run, { risk });
     const summary = {
       source: basename(path),
       landings: set.east.length,
@@ -121,6 +129,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
       pad: site.pad,
       modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: set.mode.filter((x) => x === m).length })),
       ...summaryParts(analysis),
+      ...(analysis.risk ? { risk: riskSummary(analysis.risk) } : {}),
       caution: CAUTION,
     };
     out.write('summary.json', JSON.stringify(summary, null, 2) + '\n');
@@ -129,12 +138,15 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     out.write('landings.geojson', landingsGeoJSONChunks(set, site.pad));
     if (site.areas.length > 0) out.write('areas.csv', writeAreasCsv(analysis.areas));
     out.write('result.kml', writeKml(analysis, site, `Landings from ${basename(path)}`));
+    if (analysis.risk) out.write('risk.geojson', writeRiskGeoJSON(analysis.risk, site.pad));
     out.commit();
     if (values.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!values.quiet) {
       const lines = [`${basename(path)}: ${set.east.length.toLocaleString('en')} landings`];
       for (const c of summary.contours) lines.push(`  ${(c.level * 100).toFixed(0)} % region  ${Math.round(c.area_m2).toLocaleString('en')} m², reaches ${Math.round(c.maxDistance_m)} m from the pad`);
       lines.push(`  keep-out zone ${Math.round(summary.keepOut.area_m2).toLocaleString('en')} m², reaches ${Math.round(summary.keepOut.maxDistance_m)} m`);
+      if (summary.risk) lines.push(...riskLinesText(summary.risk));
+      else if (set.impactEnergy && risk === undefined) lines.push('  risk          not assessed: the risk model needs the vehicle and risk settings of --scenario');
       for (const w of summary.warnings) lines.push(`  warning       ${w}`);
       lines.push(`  results       ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
       process.stdout.write(lines.join('\n'));

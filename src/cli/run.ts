@@ -32,8 +32,8 @@ Options:
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
   --until-stable    fly again with twice the samples, round after round, until the farthest
                     reach of the individual-risk line at risk.criteria.individual (or the
-                    smallest risk level) moves less than 2 % between rounds; the results are
-                    those of the last round
+                    smallest risk level) moves less than 2 % between rounds and the samples
+                    resolve that line; the results are those of the last round
   --stable-cap N    most samples --until-stable flies in one round (default ${DEFAULT_STABLE_CAP.toLocaleString('en')});
                     it stops there and says so
   -h, --help        this help
@@ -80,11 +80,11 @@ export async function runCommand(args: string[]): Promise<number> {
     if (untilStableWanted) {
       const stable = await untilStable(samples, stableCap, async (n) => {
         const o = await study(n);
-        return { outcome: o, reach: farthestReach(o.analysis?.risk) };
+        return { outcome: o, reach: farthestReach(o.analysis?.risk), resolved: o.analysis?.risk?.standingLine.resolved ?? true };
       }, (round) => {
         if (!quiet && !json) {
           const moved = round.moved === null ? '' : `, moved ${(round.moved * 100).toFixed(1)} %`;
-          process.stderr.write(`round: ${round.samples.toLocaleString('en')} samples, line reaches ${round.reach_m.toFixed(1)} m${moved}\n`);
+          process.stderr.write(`round: ${round.samples.toLocaleString('en')} samples, line reaches ${round.reach_m.toFixed(1)} m${moved}${round.resolved ? '' : ', not resolved yet'}\n`);
         }
       });
       outcome = stable.outcome;
@@ -93,8 +93,8 @@ export async function runCommand(args: string[]): Promise<number> {
         const last = stable.rounds[stable.rounds.length - 1];
         process.stderr.write(
           stable.stopped === 'stable'
-            ? `stable: the line's farthest reach moved less than ${STABLE_TOLERANCE * 100} % at ${last.samples.toLocaleString('en')} samples\n`
-            : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line's reach settled (--stable-cap raises it)\n`,
+            ? `stable: the line is resolved and its farthest reach moved less than ${STABLE_TOLERANCE * 100} % at ${last.samples.toLocaleString('en')} samples\n`
+            : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line settled (--stable-cap raises it)\n`,
         );
       }
     } else {

@@ -1,5 +1,6 @@
 import type { RunSummary } from './run-summary.js';
 import { CAUTION } from './caution.js';
+import { riskLinesText } from './risk-text.js';
 
 /** A probability as a percentage with two significant digits ("0 %", "0.01 %", "2.9 %"). */
 function percent(p: number): string {
@@ -32,6 +33,7 @@ export function formatRunSummary(s: RunSummary, folder: string): string {
     const hits = `${a.hits.toLocaleString('en')} ${a.hits === 1 ? 'hit' : 'hits'}`;
     lines.push(`  area           ${a.name} (${a.kind}): ${hits}, chance per flight ${percent(a.probability)}, 95 % upper bound ${percent(a.upper95)}`);
   }
+  if (s.risk) lines.push(...riskLinesText(s.risk));
   for (const w of s.warnings) lines.push(`  warning        ${w}`);
   lines.push(`  results        ${folder}`);
   lines.push('');

@@ -46,6 +46,8 @@ export interface RiskResult {
   lines: RiskLine[];
   /** Level the standing distances are for: the individual criterion, or the smallest level. */
   standingLevel: number;
+  /** The line at the standing level (one of `lines` when the level is one of the levels). */
+  standingLine: RiskLine;
   standingDistance_m: StandingDistances;
   /** East/north metres; null when nowhere is over the level. */
   standingRing: Ring | null;
@@ -85,6 +87,7 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
     harm,
     lines,
     standingLevel,
+    standingLine: lines.find((l) => l.level === standingLevel) ?? riskLines(surface, [standingLevel], samples)[0],
     standingDistance_m: standing,
     standingRing: standingRing(standing),
     areas,
@@ -125,6 +128,8 @@ function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[]): Mode
 export interface RiskSummary {
   lines: { level: number; resolved: boolean; area_m2: number; maxDistance_m: number; samplesNeeded: number | null; effectiveSamples: number }[];
   standingLevel: number;
+  /** Whether the samples resolve the line the standing distances are read from. */
+  standingResolved: boolean;
   standingDistance_m: StandingDistances;
   areas: {
     name: string;
@@ -167,6 +172,7 @@ export function riskSummary(r: RiskResult): RiskSummary {
       effectiveSamples: Number.isFinite(l.effectiveSamples) ? Math.round(l.effectiveSamples * 10) / 10 : l.effectiveSamples,
     })),
     standingLevel: r.standingLevel,
+    standingResolved: r.standingLine.resolved,
     standingDistance_m: r.standingDistance_m,
     areas: r.areas.map((a) => ({
       name: a.name,
