@@ -45,7 +45,7 @@ export function riskSettings(scenario: Pick<Scenario, 'vehicle' | 'risk'>): Risk
     personRadius: r.personRadius ?? DEFAULT_PERSON_RADIUS_M,
     personHeight: r.personHeight ?? DEFAULT_PERSON_HEIGHT_M,
     objectRadius: r.objectRadius ?? fromArea,
-    objectRadiusSource: r.objectRadius !== undefined ? 'risk.objectRadius' : 'half the reference diameter, √(reference area / π)',
+    objectRadiusSource: r.objectRadius !== undefined ? 'risk.objectRadius' : 'half the reference diameter, from the reference area',
     levels: [...(r.levels ?? DEFAULT_RISK_LEVELS)].sort((a, b) => b - a),
     criteria: { ...(r.criteria ?? {}) },
   };

@@ -33,6 +33,13 @@ export const KEEP_OUT_STROKE: Stroke = { color: '#8a1c12', width: 3.2, join: 'ro
 export const KEEP_OUT_FILL: Fill = { color: '#8a1c12', opacity: 0.06 };
 export const MINIMUM_DISTANCE_STROKE: Stroke = { color: '#8a1c12', width: 1, dash: [4, 2] };
 export const BOUNDARY_STROKE: Stroke = { color: '#262626', width: 1.2, dash: [9, 3, 2, 3] };
+/**
+ * Where people may stand (the octant ring of the individual-risk criterion): dark green-black with
+ * a long dash and two dots, unlike any contour, the boundary (one dot) or the keep-out zone (solid,
+ * heaviest). A ring the samples do not resolve is drawn thin and grey, its pattern kept.
+ */
+export const STANDING_STROKE: Stroke = { color: '#0e4a3a', width: 1.9, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' };
+export const STANDING_UNRESOLVED_STROKE: Stroke = { color: '#7d8f88', width: 1.1, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' };
 export const RING_STROKE: Stroke = { color: '#8c8c8c', width: 0.6, dash: [2, 3] };
 
 export interface AreaStyle {

@@ -60,8 +60,8 @@ function riskBlocks(risk: RiskSummary, u: UnitFormatter): Block[] {
   blocks.push({
     kind: 'rows',
     rows: [
-      { label: 'Harm model', value: `${harm}; person ${u.length(st.personRadius_m)} radius, ${u.length(st.personHeight_m)} tall; object radius ${u.length(st.objectRadius_m)} (${st.objectRadiusFrom})` },
-      { label: 'Expected casualties, all areas', value: `${smallRate(risk.total.expectedCasualties)} (95 % bound ${smallRate(risk.total.upper95)})${risk.total.collectiveCriterion ? `: ${risk.total.collectiveCriterion} of ${smallRate(st.criteria.collective)} (bound ${risk.total.collectiveCriterionUpper95})` : ''}` },
+      { label: 'Harm model', value: `${harm}; person ${u.shortLength(st.personRadius_m)} radius, ${u.shortLength(st.personHeight_m)} tall; object radius ${u.shortLength(st.objectRadius_m)} (${st.objectRadiusFrom})` },
+      { label: 'Casualties, all areas', value: `${smallRate(risk.total.expectedCasualties)} (95 % bound ${smallRate(risk.total.upper95)})${risk.total.collectiveCriterion ? `: ${risk.total.collectiveCriterion} of ${smallRate(st.criteria.collective)} (bound ${risk.total.collectiveCriterionUpper95})` : ''}` },
     ],
   });
   blocks.push({
@@ -78,6 +78,24 @@ function riskBlocks(risk: RiskSummary, u: UnitFormatter): Block[] {
       u.area(l.area_m2),
       u.length(l.maxDistance_m),
       l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`,
+    ]),
+  });
+  blocks.push({
+    kind: 'table',
+    id: 'risk-modes',
+    columns: [
+      { title: 'Mode', weight: 2 },
+      { title: 'Impact speed, median (95 %)', weight: 1.8, align: 'right' },
+      { title: 'Impact energy, median (95 %)', weight: 1.8, align: 'right' },
+      { title: 'Harmful share', weight: 1.1, align: 'right' },
+      { title: 'Expected casualties', weight: 1.3, align: 'right' },
+    ],
+    rows: risk.modes.map((m) => [
+      m.name,
+      `${u.speed(m.impactSpeed_m_s.p50)} (${u.speed(m.impactSpeed_m_s.p95)})`,
+      `${significant(m.impactEnergy_J.p50, 3)} J (${significant(m.impactEnergy_J.p95, 3)} J)`,
+      percent(m.harmfulShare),
+      smallRate(m.expectedCasualties),
     ]),
   });
   const octants = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
