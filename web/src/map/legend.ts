@@ -1,7 +1,8 @@
 import type { IControl } from 'maplibre-gl';
 import { el, replaceChildren } from '../panels/dom.js';
 import { level } from '../units/format.js';
-import { AREA_CLASSES, AREA_NO_HITS, BOUNDARY, KEEP_OUT, RINGS, TRACK, contourStyle, modeStyle, type LineStyle } from './palette.js';
+import { AREA_CLASSES, AREA_NO_HITS, BOUNDARY, KEEP_OUT, RINGS, STANDING, TRACK, contourStyle, modeStyle, riskStyle, type LineStyle } from './palette.js';
+import { smallRate } from '../../../src/report/sheet/units.js';
 
 const SVG = 'http://www.w3.org/2000/svg';
 
@@ -49,6 +50,8 @@ export interface LegendContent {
   /** The areas carry hit probabilities from a run (otherwise they are plain outlines). */
   areaFigures: boolean;
   hasTrack: boolean;
+  /** Individual-risk lines (highest first) and the criterion of the standing ring. */
+  risk?: { levels: { level: number; resolved: boolean }[]; standingLevel: number } | null;
 }
 
 /** What the symbols on the map mean; mode names are the scenario's text. */
@@ -82,6 +85,11 @@ export class LegendControl implements IControl {
       content.levels.forEach((p, i) => items.push(item(lineSwatch(contourStyle(i)), `${level(p)} of landings`)));
     }
     if (content.keepOut) items.push(item(lineSwatch(KEEP_OUT), `Keep-out zone (${level(content.keepOut.level)} + margin)`));
+    if (content.risk) {
+      items.push(heading('Individual risk per flight'));
+      content.risk.levels.forEach((l, i) => items.push(item(lineSwatch(riskStyle(i)), `${smallRate(l.level)} or more${l.resolved ? '' : ' (faint: not resolved)'}`)));
+      items.push(item(lineSwatch(STANDING), `Under ${smallRate(content.risk.standingLevel)} beyond (by octant)`));
+    }
     if (content.hasAreas && content.areaFigures) {
       items.push(heading('Marked areas, chance of a landing'));
       items.push(item(fillSwatch(AREA_NO_HITS, '#333333'), 'no landing in the samples'));

@@ -46,6 +46,23 @@ export function contourStyle(index: number): LineStyle {
   return CONTOUR_STYLES[Math.min(index, CONTOUR_STYLES.length - 1)]!;
 }
 
+/**
+ * Individual-risk lines, highest level first: dark teal, each level its own dash-and-dots pattern
+ * so they differ from the contours in grey too. A line the samples do not resolve is drawn faint.
+ */
+const RISK_STYLES: readonly LineStyle[] = [
+  { color: '#0B3D33', width: 2.2, dash: [5, 1.2, 1, 1.2] },
+  { color: '#1F6B5A', width: 2, dash: [5, 1.2, 1, 1.2, 1, 1.2] },
+  { color: '#3F8F7C', width: 1.8, dash: [2.5, 1.2] },
+];
+
+export function riskStyle(index: number): LineStyle {
+  return RISK_STYLES[Math.min(index, RISK_STYLES.length - 1)]!;
+}
+
+/** Where people may stand: the octant ring at the individual criterion; heavy, long dashes. */
+export const STANDING: LineStyle = { color: '#062A22', width: 3, dash: [8, 1.5, 1, 1.5, 1, 1.5] };
+
 export const CONTOUR_FILL = '#6A3D9A';
 export const CONTOUR_FILL_OPACITY = 0.1;
 

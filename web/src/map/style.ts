@@ -1,7 +1,7 @@
 import type { ExpressionSpecification, LayerSpecification, StyleSpecification, SymbolLayerSpecification } from 'maplibre-gl';
 import fontLatin from '@fontsource/noto-sans/files/noto-sans-latin-400-normal.woff2?url';
 import fontLatinExt from '@fontsource/noto-sans/files/noto-sans-latin-ext-400-normal.woff2?url';
-import { AREA_CLASSES, AREA_NO_HITS, AREA_OUTLINE, BASEMAP, BOUNDARY, CONTOUR_FILL, CONTOUR_FILL_OPACITY, KEEP_OUT, MODE_STYLE_COUNT, RINGS, TRACK, contourStyle, modeStyle } from './palette.js';
+import { AREA_CLASSES, AREA_NO_HITS, AREA_OUTLINE, BASEMAP, BOUNDARY, CONTOUR_FILL, CONTOUR_FILL_OPACITY, KEEP_OUT, MODE_STYLE_COUNT, RINGS, STANDING, TRACK, contourStyle, modeStyle, riskStyle } from './palette.js';
 
 /**
  * The map's own style: no tile server, no glyph server, no sprite. Text is drawn from a bundled
@@ -26,6 +26,8 @@ export const SOURCES = {
   track: 'track',
   trackLabels: 'track-labels',
   landings: 'landings',
+  risk: 'risk',
+  riskLabels: 'risk-labels',
 } as const;
 
 export type SourceId = (typeof SOURCES)[keyof typeof SOURCES];
@@ -38,6 +40,7 @@ export const LAYER_GROUPS = {
   areas: ['area-fill', 'area-line', 'area-label'],
   track: ['track-casing', 'track-line', 'track-label'],
   rings: ['ring-line', 'ring-label'],
+  risk: ['risk-line', 'risk-standing', 'risk-label'],
 } as const;
 
 export type LayerGroup = keyof typeof LAYER_GROUPS;
@@ -104,6 +107,20 @@ function contourLines(): LayerSpecification[] {
   });
 }
 
+function riskLines(): LayerSpecification[] {
+  return [0, 1, 2].map((i) => {
+    const style = riskStyle(i);
+    return {
+      id: i === 0 ? 'risk-line' : `risk-line-${i}`,
+      type: 'line',
+      source: SOURCES.risk,
+      filter: ['all', ['==', ['get', 'kind'], 'individual-risk'], ['==', ['get', 'index'], i]],
+      layout: { 'line-join': 'round' },
+      paint: { 'line-color': style.color, 'line-width': style.width, 'line-dasharray': style.dash, 'line-opacity': ['case', ['get', 'resolved'], 1, 0.4] },
+    } as LayerSpecification;
+  });
+}
+
 export function offlineStyle(): StyleSpecification {
   const sources = Object.fromEntries(Object.values(SOURCES).map((id) => [id, { type: 'geojson', data: EMPTY }]));
   const layers: LayerSpecification[] = [
@@ -123,6 +140,8 @@ export function offlineStyle(): StyleSpecification {
     ...contourLines(),
     { id: 'keepout-fill', type: 'fill', source: SOURCES.keepOut, paint: { 'fill-pattern': KEEP_OUT_HATCH, 'fill-opacity': 0.55 } },
     { id: 'keepout-line', type: 'line', source: SOURCES.keepOut, layout: { 'line-join': 'round' }, paint: { 'line-color': KEEP_OUT.color, 'line-width': KEEP_OUT.width, 'line-dasharray': KEEP_OUT.dash } },
+    ...riskLines(),
+    { id: 'risk-standing', type: 'line', source: SOURCES.risk, filter: ['==', ['get', 'kind'], 'standing-distance'], layout: { 'line-join': 'round' }, paint: { 'line-color': STANDING.color, 'line-width': STANDING.width, 'line-dasharray': STANDING.dash, 'line-opacity': ['case', ['get', 'resolved'], 1, 0.45] } },
     { id: 'track-casing', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': '#FFFFFF', 'line-width': TRACK.width + 2.4 } },
     { id: 'track-line', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': TRACK.color, 'line-width': TRACK.width } },
     {
@@ -149,6 +168,7 @@ export function offlineStyle(): StyleSpecification {
       layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': true }),
       paint: { 'text-color': byLevelIndex((i) => contourStyle(i).color), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
     },
+    { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-anchor': 'left', 'text-offset': [0.4, 0] }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': '#8A3C00', 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ];
   return {
@@ -170,5 +190,6 @@ export function layersOf(group: LayerGroup): string[] {
   const ids: string[] = [...LAYER_GROUPS[group]];
   if (group === 'contours') ids.push('contour-line-1', 'contour-line-2', 'contour-line-3');
   if (group === 'track') ids.push('track-apogee');
+  if (group === 'risk') ids.push('risk-line-1', 'risk-line-2');
   return ids;
 }

@@ -20,6 +20,7 @@ import {
   boundaryFeatures,
   boundsOf,
   contourFeatures,
+  riskMapFeatures,
   keepOutFeatures,
   landingFeatures,
   ringFeatures,
@@ -139,8 +140,11 @@ export class MapView {
         const zone = study.analysis ? keepOutFeatures(study.analysis, units.length) : { shapes: EMPTY_COLLECTION, labels: EMPTY_COLLECTION };
         this.setData(SOURCES.keepOut, zone.shapes);
         this.setData(SOURCES.keepOutLabel, zone.labels);
+        const risk = study.analysis ? riskMapFeatures(study.analysis, study.accepted.scenario.site.pad) : { shapes: EMPTY_COLLECTION, labels: EMPTY_COLLECTION };
+        this.setData(SOURCES.risk, risk.shapes);
+        this.setData(SOURCES.riskLabels, risk.labels);
       } else {
-        for (const id of [SOURCES.landings, SOURCES.contours, SOURCES.contourLabels, SOURCES.keepOut, SOURCES.keepOutLabel]) this.setData(id, EMPTY_COLLECTION);
+        for (const id of [SOURCES.landings, SOURCES.contours, SOURCES.contourLabels, SOURCES.keepOut, SOURCES.keepOutLabel, SOURCES.risk, SOURCES.riskLabels]) this.setData(id, EMPTY_COLLECTION);
       }
     }
     // Results from an earlier version of the scenario stay visible, but faded.
@@ -157,6 +161,7 @@ export class MapView {
       hasAreas: site.areas.length > 0,
       areaFigures: figures.length > 0,
       hasTrack: nominal.track.length > 1,
+      risk: study?.analysis?.risk ? { levels: study.analysis.risk.lines.map((l) => ({ level: l.level, resolved: l.resolved })), standingLevel: study.analysis.risk.standingLevel } : null,
     });
 
     if (options.fit === 'site') this.fitSite();
