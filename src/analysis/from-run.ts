@@ -11,6 +11,22 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
   const weights = sampleWeights(run);
   let landed = 0;
   for (let i = 0; i < run.count; i++) if (run.status[i] === 0) landed++;
+  if (landed === run.count) {
+    // Every sample landed: the run's own columns are the landing set's (read only), no copies.
+    return {
+      east: run.east,
+      north: run.north,
+      weight: weights,
+      mode: run.mode,
+      modeNames: run.plan.names,
+      modeProbability: Array.from(run.plan.probability),
+      modeCarriesParachute: modesWithParachute(run, scenario),
+      sample: Uint32Array.from({ length: run.count }, (_, i) => run.start + i),
+      apogee: run.apogee,
+      flightTime: run.flightTime,
+      impactSpeed: run.impactSpeed,
+    };
+  }
   const set: Required<LandingSet> = {
     east: new Float64Array(landed),
     north: new Float64Array(landed),
@@ -33,7 +49,7 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
     set.north[j] = run.north[i];
     set.weight[j] = weights[i];
     set.mode[j] = run.mode[i];
-    set.sample[j] = i;
+    set.sample[j] = run.start + i;
     set.apogee[j] = run.apogee[i];
     set.flightTime[j] = run.flightTime[i];
     set.impactSpeed[j] = run.impactSpeed[i];

@@ -11,6 +11,8 @@ import type { Geometry } from 'geojson';
 import { createLocalFrame } from './geodesy.js';
 import type { AnalysisResult } from './index.js';
 import type { LandingSet } from './types.js';
+import { landingFigures } from './landing-columns.js';
+import type { LandingSubset } from './thinning.js';
 
 export const COORDINATE_DECIMALS = 8;
 
@@ -67,29 +69,44 @@ const CHUNK = 5_000;
 
 /**
  * landings.geojson in pieces, so a caller can stream a million points to a file without holding one
- * string of a quarter gigabyte (V8 caps a string near 512 M characters).
+ * string of a quarter gigabyte (V8 caps a string near 512 M characters). With `subset` (see
+ * thinning.ts) only those landings are written, with the subset's weights, and the collection
+ * says so in a `subset` member (RFC 7946 §6.1 foreign member) before its features.
  *
  * @example
  *   for (const piece of landingsGeoJSONChunks(set, site.pad)) stream.write(piece);
  */
-export function* landingsGeoJSONChunks(set: LandingSet, pad: { lat: number; lon: number }): Generator<string> {
+export function* landingsGeoJSONChunks(set: LandingSet, pad: { lat: number; lon: number }, subset: LandingSubset | null = null): Generator<string> {
   const frame = createLocalFrame(pad);
   const names = set.modeNames.map((name) => JSON.stringify(name));
-  const optional = (array: Float64Array | undefined, i: number, decimals: number) =>
-    array ? String(roundTo(array[i], decimals)) : 'null';
-  yield '{"type":"FeatureCollection","features":[';
-  for (let from = 0; from < set.east.length; from += CHUNK) {
-    const to = Math.min(set.east.length, from + CHUNK);
+  const figures = landingFigures(set);
+  const known = new Map(figures.map((f) => [f.name, f]));
+  // The fixed properties keep their place (and null when absent); other figures follow them.
+  const fixed = [['apogee_m', 1], ['flight_time_s', 2], ['impact_speed_m_s', 2]] as const;
+  const extra = figures.filter((f) => !fixed.some(([name]) => name === f.name));
+  const count = subset ? subset.index.length : set.east.length;
+  yield subset
+    ? `{"type":"FeatureCollection","subset":${JSON.stringify({ ...subset.description, note: `a subset of the landings; landings.fgb and landings.csv hold all ${subset.description.of}` })},"features":[`
+    : '{"type":"FeatureCollection","features":[';
+  for (let from = 0; from < count; from += CHUNK) {
+    const to = Math.min(count, from + CHUNK);
     const features: string[] = new Array(to - from);
-    for (let i = from; i < to; i++) {
+    for (let k = from; k < to; k++) {
+      const i = subset ? subset.index[k] : k;
+      const weight = subset ? subset.weight[k] : set.weight[i];
       const [lon, lat] = frame.toLonLat(set.east[i], set.north[i]);
-      features[i - from] =
+      let more = '';
+      for (const [name, decimals] of fixed) {
+        const f = known.get(name);
+        more += `,"${name}":${f ? String(roundTo(f.values[i], decimals)) : 'null'}`;
+      }
+      for (const f of extra) more += `,${JSON.stringify(f.name)}:${roundTo(f.values[i], f.decimals)}`;
+      features[k - from] =
         `{"type":"Feature","geometry":{"type":"Point","coordinates":[${roundTo(lon, COORDINATE_DECIMALS)},` +
         `${roundTo(lat, COORDINATE_DECIMALS)}]},"properties":{"sample":${set.sample ? set.sample[i] : i},` +
         `"mode":${names[set.mode[i]] ?? 'null'},"east_m":${roundTo(set.east[i], 2)},` +
-        `"north_m":${roundTo(set.north[i], 2)},"apogee_m":${optional(set.apogee, i, 1)},` +
-        `"flight_time_s":${optional(set.flightTime, i, 2)},"impact_speed_m_s":${optional(set.impactSpeed, i, 2)},` +
-        `"weight":${Number(set.weight[i].toPrecision(6))}}}`;
+        `"north_m":${roundTo(set.north[i], 2)}${more},` +
+        `"weight":${Number(weight.toPrecision(6))}}}`;
     }
     yield (from > 0 ? ',' : '') + features.join(',');
   }

@@ -2,6 +2,7 @@ import { AirModel } from '../physics/air.js';
 import { FAILURE_REASONS } from '../flight/status.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
+import { nominalFigureLines, nominalFigures } from '../report/stability.js';
 
 export const CHECK_HELP = `Usage: strewn check <scenario.json> [--max-samples N]
 
@@ -34,6 +35,7 @@ export async function checkCommand(args: string[]): Promise<number> {
   const n = loaded.nominal;
   const status = n.status === 0 ? `lands ${Math.hypot(n.east, n.north).toFixed(0)} m from the pad after ${n.flightTime.toFixed(1)} s` : `fails: ${FAILURE_REASONS[n.status]}`;
   process.stderr.write(`scenario '${sc.name}' is valid (hash ${loaded.hash.slice(0, 12)}); nominal flight: apogee ${n.apogee.toFixed(0)} m, ${status}\n`);
+  for (const line of nominalFigureLines(nominalFigures(sc, n))) process.stderr.write(`${line}\n`);
   printWarnings(loaded.warnings);
   return 0;
 }

@@ -1,21 +1,20 @@
-import { runCommand, RUN_HELP } from './run.js';
-import { checkCommand, CHECK_HELP } from './check.js';
-import { analyzeCommand, ANALYZE_HELP } from './analyze.js';
-import { sheetCommand, SHEET_HELP } from './sheet.js';
-import { envelopeCommand, ENVELOPE_HELP } from './envelope.js';
-
+/**
+ * The commands, each loaded only when it is called: `strewn --help` and `strewn --version` load
+ * none of them, and `strewn check` never loads the engine pool, the analysis or the sheet code.
+ * Each command prints its own help (`strewn run --help`).
+ */
 export interface Command {
   summary: string;
-  help: string;
   run(args: string[]): Promise<number>;
 }
 
 export const COMMANDS: Record<string, Command> = {
-  run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', help: RUN_HELP, run: runCommand },
-  analyze: { summary: 'draw contours, the keep-out zone and area figures from landing points recorded elsewhere', help: ANALYZE_HELP, run: analyzeCommand },
-  check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', help: CHECK_HELP, run: checkCommand },
-  sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', help: SHEET_HELP, run: sheetCommand },
-  envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', help: ENVELOPE_HELP, run: envelopeCommand },
+  run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', run: async (args) => (await import('./run.js')).runCommand(args) },
+  analyze: { summary: 'draw contours, the keep-out zone and area figures from landing points recorded elsewhere', run: async (args) => (await import('./analyze.js')).analyzeCommand(args) },
+  check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', run: async (args) => (await import('./check.js')).checkCommand(args) },
+  sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', run: async (args) => (await import('./sheet.js')).sheetCommand(args) },
+  merge: { summary: 'put the shards of a study (strewn run --shard K/N) together into one results folder', run: async (args) => (await import('./merge.js')).mergeCommand(args) },
+  envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', run: async (args) => (await import('./envelope.js')).envelopeCommand(args) },
 };
 
 export function mainHelp(): string {

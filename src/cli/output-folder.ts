@@ -33,7 +33,7 @@ export class OutputFolder {
   }
 
   /** Writes a file; content given in pieces is streamed so no single huge string is built. */
-  write(name: string, content: string | Uint8Array | Iterable<string>): void {
+  write(name: string, content: string | Uint8Array | Iterable<string | Uint8Array>): void {
     const file = join(this.staging, name);
     if (typeof content === 'string' || content instanceof Uint8Array) {
       writeFileSync(file, content);
@@ -41,7 +41,10 @@ export class OutputFolder {
     }
     const fd = openSync(file, 'w');
     try {
-      for (const piece of content) writeSync(fd, piece);
+      for (const piece of content) {
+        const bytes = typeof piece === 'string' ? Buffer.from(piece) : piece;
+        for (let at = 0; at < bytes.length; ) at += writeSync(fd, bytes, at, bytes.length - at);
+      }
     } finally {
       closeSync(fd);
     }

@@ -1,10 +1,9 @@
 import { basename, extname, join } from 'node:path';
 import { DEFAULT_MAX_SAMPLES } from '../scenario/schema.js';
 import { runInPool } from '../pool/pool.js';
-import { nodeWorkerCount, nodeWorkerFactory } from '../pool/node.js';
-import { buildResultFiles } from '../report/result-files.js';
+import { nodeWorkerCount, nodeWorkerFactory, prestartWorkers } from '../pool/node.js';
 import { formatRunSummary } from '../report/run-text.js';
-import { studyOutcome } from '../report/study.js';
+import { shardRange } from '../dispersion/shards.js';
 import { parseCommandArgs, integerOption, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
@@ -12,11 +11,16 @@ import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
 import { DEFAULT_STABLE_CAP, STABLE_TOLERANCE, farthestReach, untilStable } from '../risk/until-stable.js';
 import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
+import { parseShardOption, shardFolderName } from './shard-option.js';
+import { writeShardFolder } from './shard-folder.js';
+import { honourInterrupt } from './study-files-light.js';
+import { PhaseTimer } from './phase-timer.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
 Flies every Monte-Carlo sample of the scenario and writes the results into a folder:
-landings.csv, summary.json, contours.geojson, keepout.geojson, landings.geojson, areas.csv,
+landings.csv, summary.json, contours.geojson, keepout.geojson, landings.fgb (every landing, FlatGeobuf),
+landings.geojson (a stated, stratified subset above 100,000 landings), areas.csv,
 result.kml, the review sheet (sheet.pdf, map.svg) and what redraws it (scenario.json, review.json;
 see strewn sheet). The folder appears only when the run has finished; a failed or cancelled run
 leaves nothing behind.
@@ -30,6 +34,9 @@ Options:
   --quiet           print nothing but errors
   --json            print the summary as JSON on stdout
   --max-samples N   lift the cap of ${DEFAULT_MAX_SAMPLES.toLocaleString('en')} samples
+  --shard K/N       fly only shard K of N (K from 0; contiguous sample ranges) into the shard
+                    folder DIR/shard-K-of-N for strewn merge; auto/N takes K from
+                    JOB_COMPLETION_INDEX or SLURM_ARRAY_TASK_ID (default DIR: results/<name>-shards)
   --until-stable    fly again with twice the samples, round after round, until the farthest
                     reach of the individual-risk line at risk.criteria.individual (or the
                     smallest risk level) moves less than 2 % between rounds and the samples
@@ -42,7 +49,9 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
 export async function runCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
+  const timer = new PhaseTimer();
+  timer.lap('start and load');
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -59,25 +68,57 @@ export async function runCommand(args: string[]): Promise<number> {
   const quiet = values.quiet === true;
   const json = values.json === true;
 
+  // The workers load their code while this thread reads the scenario and flies the nominal flight.
+  const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
+  try {
+    return await runStudy(path, values, { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker: prestarted.createWorker, untilStableWanted, stableCap });
+  } finally {
+    prestarted.dispose();
+  }
+}
+
+interface RunSettings {
+  maxSamples: number;
+  samplesOption: number | undefined;
+  workers: number;
+  seedOption: string | undefined;
+  quiet: boolean;
+  json: boolean;
+  timer: PhaseTimer;
+  createWorker: ReturnType<typeof nodeWorkerFactory>;
+  untilStableWanted: boolean;
+  stableCap: number;
+}
+
+async function runStudy(path: string, values: Record<string, unknown>, settings: RunSettings): Promise<number> {
+  const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker, untilStableWanted, stableCap } = settings;
   const loaded = loadForCommand(path, maxSamples);
   const scenario = loaded.scenario;
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
-  const outDir = (values.out as string | undefined) ?? join('results', basename(path, extname(path)));
-  const createWorker = nodeWorkerFactory();
+  const shard = parseShardOption(values.shard as string | undefined, process.env, samples);
+  if (shard && untilStableWanted) throw new UsageError('--until-stable: cannot be combined with --shard (each round flies the whole study)');
+  const outDir = shard
+    ? join((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-shards`), shardFolderName(shard))
+    : ((values.out as string | undefined) ?? join('results', basename(path, extname(path))));
   const out = OutputFolder.prepare(outDir, values.force === true);
   if (!quiet && !json) printWarnings(loaded.warnings);
 
   const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
+  timer.lap('scenario and nominal flight');
   try {
-    const study = async (n: number) => {
-      const run = await runInPool({ scenario, samples: n, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
-      bar.end();
-      return studyOutcome(scenario, loaded.hash, run, loaded.warnings);
-    };
-    let outcome: Awaited<ReturnType<typeof study>>;
+    const range = shard ? shardRange(samples, shard) : undefined;
+    // The analysis, report and sheet code loads while the workers fly.
+    const files = shard ? null : import('./study-files.js');
+    files?.catch(() => {});
     if (untilStableWanted) {
+      const { studyOutcome, writeOutcomeFiles } = await files!;
+      const study = async (n: number) => {
+        const run = await runInPool({ scenario, samples: n, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
+        bar.end();
+        return studyOutcome(scenario, loaded.hash, run, loaded.warnings);
+      };
       const stable = await untilStable(samples, stableCap, async (n) => {
         const o = await study(n);
         return { outcome: o, reach: farthestReach(o.analysis?.risk), resolved: o.analysis?.risk?.standingLine.resolved ?? true };
@@ -87,7 +128,7 @@ export async function runCommand(args: string[]): Promise<number> {
           process.stderr.write(`round: ${round.samples.toLocaleString('en')} samples, line reaches ${round.reach_m.toFixed(1)} m${moved}${round.resolved ? '' : ', not resolved yet'}\n`);
         }
       });
-      outcome = stable.outcome;
+      const outcome = stable.outcome;
       if (outcome.summary.risk) outcome.summary.risk.untilStable = { rounds: stable.rounds, stopped: stable.stopped, tolerance: STABLE_TOLERANCE, cap: stableCap };
       if (!quiet && !json) {
         const last = stable.rounds[stable.rounds.length - 1];
@@ -97,17 +138,34 @@ export async function runCommand(args: string[]): Promise<number> {
             : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line settled (--stable-cap raises it)\n`,
         );
       }
-    } else {
-      outcome = await study(samples);
+      const summary = writeOutcomeFiles(out, scenario, outcome, timer);
+      await honourInterrupt(interrupt.signal);
+      out.commit();
+      if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
+      else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
+      return 0;
     }
-    const { set, analysis, summary } = outcome;
-    for (const [name, content] of buildResultFiles(scenario, set, analysis, summary)) out.write(name, content);
-    // The analysis and the writing run in this thread, so a Ctrl-C pressed meanwhile waits in the
-    // event loop: two turns (one is not enough) let it reach its handler; honour it before the
-    // results appear.
-    for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
-    interrupt.signal.throwIfAborted();
+    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p) });
+    bar.end();
+    timer.lap('flights (workers; main thread waits)');
+    if (shard) {
+      const manifest = writeShardFolder(out, run, { scenario, scenarioHash: loaded.hash, seed, samples, warnings: loaded.warnings, shard });
+      await honourInterrupt(interrupt.signal);
+      out.commit();
+      if (json) process.stdout.write(JSON.stringify({ shard: manifest.shard, first: manifest.first, count: manifest.count, folder: out.destination }, null, 2) + '\n');
+      else if (!quiet) {
+        process.stdout.write(
+          `shard ${shard.index} of ${shard.count} (0-based): samples ${manifest.first}–${manifest.first + manifest.count - 1} of ${samples} flown into ${out.destination}\n` +
+            'merge every shard with: strewn merge <shard folders…> --out <results folder>\n',
+        );
+      }
+      return 0;
+    }
+    const { writeStudyFiles } = await files!;
+    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, timer);
+    await honourInterrupt(interrupt.signal);
     out.commit();
+    timer.lap('commit');
     if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
     return 0;

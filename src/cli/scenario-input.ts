@@ -1,5 +1,5 @@
 import { loadScenarioFile, type LoadedScenario } from '../scenario/file.js';
-import { railExitSpeedWarnings } from '../scenario/warnings.js';
+import { machWarnings, railExitSpeedWarnings } from '../scenario/warnings.js';
 import { flyNominal } from '../dispersion/runner.js';
 import type { Issue } from '../scenario/types.js';
 
@@ -7,7 +7,7 @@ import type { Issue } from '../scenario/types.js';
 export function loadForCommand(path: string, maxSamples?: number): LoadedScenario & { nominal: ReturnType<typeof flyNominal> } {
   const loaded = loadScenarioFile(path, { maxSamples });
   const nominal = flyNominal(loaded.scenario);
-  const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed)];
+  const warnings: Issue[] = [...loaded.warnings, ...railExitSpeedWarnings(loaded.scenario, nominal.railExitSpeed), ...machWarnings(loaded.scenario, nominal.maxMach)];
   return { ...loaded, warnings, nominal };
 }
 

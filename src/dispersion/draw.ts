@@ -2,7 +2,7 @@ import type { Scenario, Spread, UncertaintyName } from '../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../scenario/types.js';
 import type { FlightInputs } from '../flight/inputs.js';
 import { sigmaWFromGust, sigmaWFromW20 } from '../physics/dryden.js';
-import type { MeanWind } from '../physics/wind.js';
+import { referenceSpeed, type MeanWind } from '../physics/wind.js';
 import { RHO_SEA_LEVEL, G0 } from '../physics/constants.js';
 import { spreadOffset } from './spreads.js';
 import type { SampleStream } from './random.js';
@@ -36,7 +36,9 @@ export class InputDrawer {
 
   /**
    * Draws one sample's inputs. Every parameter consumes exactly one uniform, in the fixed order of
-   * UNCERTAINTY_NAMES, whether or not it has a spread; turbulence draws come after.
+   * UNCERTAINTY_NAMES, whether or not it has a spread; then, always consumed and in this order, the
+   * direction of a thrust misalignment around the body axis and the launch lean across the plane
+   * of the nominal lean; turbulence draws come after.
    */
   draw(stream: SampleStream, mode: number, wind: MeanWind, inputs: FlightInputs): void {
     const sc = this.scenario;
@@ -46,14 +48,21 @@ export class InputDrawer {
       const spread = this.spreads[i];
       v[i] = spread === undefined ? this.nominal[i] : this.nominal[i] + spreadOffset(spread, this.nominal[i], uniformScratch[i]);
     }
+    const misalignmentDirection = stream.uniform();
+    const acrossUniform = stream.uniform();
     const launch = sc.launch;
     inputs.windSpeed = Math.max(0, v[0]);
     inputs.windTurn = v[1] - sc.weather.wind.from;
-    inputs.tilt = clamp(v[3], 0, 90);
+    inputs.misalignmentDirection = 360 * misalignmentDirection;
+    // The lean is never clamped: a draw past the vertical leans the other way (the flight turns
+    // the two angles into a direction), so a vertical launch scatters round about the pad.
+    inputs.tilt = v[3];
     inputs.azimuth = v[4];
     inputs.heading = v[4];
     inputs.speed = Math.max(0, v[5]);
-    inputs.elevation = clamp(v[6], -90, 90);
+    inputs.elevation = v[6];
+    const lean = this.spreads[launch.kind === 'rocket' ? 3 : 6];
+    inputs.leanAcross = lean !== undefined && launch.kind !== 'release' ? spreadOffset(lean, 0, acrossUniform) : 0;
     inputs.height = Math.max(0, v[7]);
     inputs.east = launch.kind === 'release' ? launch.east : 0;
     inputs.north = launch.kind === 'release' ? launch.north : 0;
@@ -63,6 +72,9 @@ export class InputDrawer {
     inputs.cdScale = Math.max(0.01, v[10] / this.nominal[10]);
     inputs.delayOffset = v[11] - this.nominal[11];
     inputs.rateFactor = this.nominal[12] > 0 ? Math.max(0.05, v[12] / this.nominal[12]) : 1;
+    // A drawn misalignment below 0 is the same tilt of the thrust line turned half round.
+    inputs.misalignment = v[13];
+    inputs.cg = v[14];
 
     // Turbulence strength: from the gust when one is given, else the Dryden light default.
     if (!sc.weather.turbulence) inputs.sigmaW = 0;
@@ -92,21 +104,17 @@ export function readSpreadUniforms(stream: SampleStream, out: Float64Array): voi
   for (let i = 0; i < UNCERTAINTY_NAMES.length; i++) out[i] = stream.uniform();
 }
 
-function clamp(x: number, lo: number, hi: number): number {
-  return x < lo ? lo : x > hi ? hi : x;
-}
-
 /** The nominal value of a spread parameter in the scenario (0 where it does not apply). */
 export function nominalValue(sc: Scenario, name: UncertaintyName): number {
   const l = sc.launch;
   const w = sc.weather.wind;
   switch (name) {
     case 'wind.speed':
-      return w.speed;
+      return referenceSpeed(w);
     case 'wind.from':
       return w.from;
     case 'wind.gust':
-      return w.gust ?? w.speed;
+      return w.gust ?? referenceSpeed(w);
     case 'launch.tilt':
       return l.kind === 'rocket' ? l.tilt : 0;
     case 'launch.azimuth':
@@ -125,6 +133,10 @@ export function nominalValue(sc: Scenario, name: UncertaintyName): number {
       return sc.vehicle.drag.cd[0];
     case 'recovery.delay':
       return sc.recovery.length > 0 ? sc.recovery.reduce((s, r) => s + r.delay, 0) / sc.recovery.length : 0;
+    case 'motor.misalignment':
+      return 0;
+    case 'vehicle.cg':
+      return sc.vehicle.shape?.cg ?? 0;
     case 'recovery.rate': {
       // The sea-level descent rate of the last stage stands for all stages; every drag area is
       // scaled by (nominal / drawn)², which scales every stage's descent rate by the same factor.

@@ -1,6 +1,7 @@
 import type { ChunkResult } from './runner.js';
 import { allocateChunk } from './runner.js';
 import type { ModePlan } from './modes.js';
+import { placeColumns } from './columns.js';
 
 /** A whole run's samples, indexed by sample number, with the mode plan that weights them. */
 export interface RunResult extends ChunkResult {
@@ -8,25 +9,26 @@ export interface RunResult extends ChunkResult {
   seed: string;
 }
 
-/** Places chunks (in any order) into one result indexed by sample. Throws if a sample is missing. */
-export function assembleChunks(samples: number, chunks: readonly ChunkResult[], plan: ModePlan, seed: string): RunResult {
-  const all = allocateChunk(0, samples);
-  const filled = new Uint8Array(samples);
+/**
+ * Places chunks (in any order) into one result indexed by sample. Throws if a sample is missing.
+ * `range` ([first sample, count]) assembles only part of the run, as a shard does; the result's
+ * `start` is then the range's first sample.
+ */
+export function assembleChunks(
+  samples: number,
+  chunks: readonly ChunkResult[],
+  plan: ModePlan,
+  seed: string,
+  range: readonly [number, number] = [0, samples],
+): RunResult {
+  const all = allocateChunk(range[0], range[1]);
+  const filled = new Uint8Array(range[1]);
   for (const c of chunks) {
-    all.east.set(c.east, c.start);
-    all.north.set(c.north, c.start);
-    all.apogee.set(c.apogee, c.start);
-    all.flightTime.set(c.flightTime, c.start);
-    all.impactSpeed.set(c.impactSpeed, c.start);
-    all.impactAngle.set(c.impactAngle, c.start);
-    all.impactMass.set(c.impactMass, c.start);
-    all.mode.set(c.mode, c.start);
-    all.status.set(c.status, c.start);
-    all.steps.set(c.steps, c.start);
-    filled.fill(1, c.start, c.start + c.count);
+    placeColumns(all, c);
+    filled.fill(1, c.start - range[0], c.start - range[0] + c.count);
   }
   const missing = filled.indexOf(0);
-  if (missing >= 0) throw new Error(`internal error: sample ${missing} was never flown`);
+  if (missing >= 0) throw new Error(`internal error: sample ${range[0] + missing} was never flown`);
   return { ...all, plan, seed };
 }
 

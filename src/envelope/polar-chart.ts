@@ -125,6 +125,8 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
       return { kind: 'path', className: 'spoke', data: { from: String(d) }, d: [['M', cx, cy], ['L', sx, sy]], stroke: { color: ENVELOPE_STYLE.spoke, width: 0.5 } };
     }),
   });
+  /** Boxes of the compass labels: ring labels keep clear of them. */
+  const compassBoxes: { minX: number; minY: number; maxX: number; maxY: number }[] = [];
   shapes.push({
     kind: 'group',
     className: 'compass',
@@ -134,7 +136,11 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
       const anchor = Math.sin(a) > 0.25 ? 'start' : Math.sin(a) < -0.25 ? 'end' : 'middle';
       // Labels above the centre sit on their point, those below hang from it.
       const baseline = ly + (LABEL_SIZE * CAP_HEIGHT * (1 - Math.cos(a))) / 2;
-      return { kind: 'text', x: lx, y: baseline, text: compassLabel(d), size: LABEL_SIZE, font: 'regular', anchor, color: INK };
+      const text = compassLabel(d);
+      const w = measure(text, LABEL_SIZE, 'regular');
+      const left = anchor === 'start' ? lx : anchor === 'end' ? lx - w : lx - w / 2;
+      compassBoxes.push({ minX: left - 1, minY: baseline - LABEL_SIZE * CAP_HEIGHT - 1, maxX: left + w + 1, maxY: baseline + 1.5 });
+      return { kind: 'text', x: lx, y: baseline, text, size: LABEL_SIZE, font: 'regular', anchor, color: INK };
     }),
   });
 
@@ -163,7 +169,16 @@ export function polarChart(e: EnvelopeResult, options: PolarChartOptions): Polar
       const r = (v / outer) * radius;
       const text = v === outer ? `${ringNumber(v)} ${frame.unit.name}` : ringNumber(v);
       const width = measure(text, LABEL_SIZE, 'regular');
-      const [lx, ly] = frame.at(bearing, r);
+      // The outer ring's label (with the unit) is the widest and sits next to the compass labels:
+      // it moves inwards along its line until its box clears every compass label.
+      let at = r;
+      let [lx, ly] = frame.at(bearing, at);
+      const boxAt = (x: number, y: number) => ({ minX: x - 1, minY: y + (LABEL_SIZE * CAP_HEIGHT) / 2 - LABEL_SIZE * CAP_HEIGHT - 1, maxX: x + width + 1, maxY: y + (LABEL_SIZE * CAP_HEIGHT) / 2 + 1.5 });
+      const clash = (x: number, y: number) => compassBoxes.some((c) => { const b = boxAt(x, y); return b.minX < c.maxX && c.minX < b.maxX && b.minY < c.maxY && c.minY < b.maxY; });
+      while (at > r * 0.5 && clash(lx, ly)) {
+        at -= 1;
+        [lx, ly] = frame.at(bearing, at);
+      }
       const baseline = ly + (LABEL_SIZE * CAP_HEIGHT) / 2;
       return [
         { kind: 'rect', x: lx - 1, y: baseline - LABEL_SIZE * CAP_HEIGHT - 1, width: width + 2, height: LABEL_SIZE * CAP_HEIGHT + 2.5, fill: LABEL_BACKING },

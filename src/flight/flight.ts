@@ -1,6 +1,6 @@
 import type { Scenario } from '../scenario/types.js';
-import { G0 } from '../physics/constants.js';
 import { AirModel, type Air } from '../physics/air.js';
+import { EarthModel, addCoriolis, type Earth } from '../physics/earth.js';
 import { MeanWind } from '../physics/wind.js';
 import { GustField } from '../physics/gust-field.js';
 import { DragCurve, addDragAcceleration } from '../physics/drag.js';
@@ -10,6 +10,8 @@ import type { FlightInputs } from './inputs.js';
 import { FlightStatus } from './status.js';
 import { RecoverySchedule } from './recovery-schedule.js';
 import { locateCrossing } from './locate-crossing.js';
+import { launchDirection } from './launch-direction.js';
+import { aeroTable, finMachFactor, massLayout } from '../physics/aero.js';
 
 const DEG = Math.PI / 180;
 
@@ -23,8 +25,21 @@ export interface FlightOptions {
   maxSteps: number;
   /** Smallest step before the flight is declared failed, s. */
   minStep: number;
+  /** Rigid body: absolute tolerance on the axis and misalignment unit vectors, and on the angular rate (rad/s). */
+  atolAttitude: number;
+  atolRate: number;
+  /** Rigid body: multiplies every normal-force slope (and the aerodynamic damping) — for tests only. */
+  normalForceScale: number;
+  /** Rigid body: multiplies the transverse inertia — for tests only. */
+  inertiaScale: number;
+  /** Rigid body: false turns off both damping moments — for tests only. */
+  damping: boolean;
+  /** Rigid body: multiplies both damping moments — for tests only. */
+  dampingScale: number;
   /** Replaces the scenario's atmosphere (tests against constant-density closed forms). */
   air?: Air;
+  /** Replaces the rotating WGS 84 Earth at the pad (tests against uniform-gravity closed forms). */
+  earth?: Earth;
 }
 
 export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
@@ -34,6 +49,12 @@ export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
   maxTime: 3600,
   maxSteps: 200_000,
   minStep: 1e-9,
+  atolAttitude: 1e-5,
+  atolRate: 1e-4,
+  normalForceScale: 1,
+  inertiaScale: 1,
+  damping: true,
+  dampingScale: 1,
 };
 
 /** What one flight produced. Reused between flights. */
@@ -43,6 +64,9 @@ export interface FlightResult {
   north: number;
   apogee: number;
   apogeeTime: number;
+  /** Where the apogee was, m east and north of the pad (0, 0 until it is reached). */
+  apogeeEast: number;
+  apogeeNorth: number;
   flightTime: number;
   impactSpeed: number;
   /** Angle of the ground-relative velocity at impact above the horizontal, deg (90 = straight down). */
@@ -52,12 +76,14 @@ export interface FlightResult {
   /** Speed along the rail when the rocket left it, m/s (NaN when there is no rail). */
   railExitSpeed: number;
   steps: number;
+  /** Highest Mach number at the accepted steps (rigid-body rockets only; 0 otherwise). */
+  maxMach: number;
 }
 
 export function emptyResult(): FlightResult {
   return {
-    status: 0, east: 0, north: 0, apogee: 0, apogeeTime: 0, flightTime: 0,
-    impactSpeed: 0, impactAngle: 0, impactMass: 0, railExitSpeed: NaN, steps: 0,
+    status: 0, east: 0, north: 0, apogee: 0, apogeeTime: 0, apogeeEast: 0, apogeeNorth: 0, flightTime: 0,
+    impactSpeed: 0, impactAngle: 0, impactMass: 0, railExitSpeed: NaN, steps: 0, maxMach: 0,
   };
 }
 
@@ -80,6 +106,7 @@ const EV_STAGE = 3; // + stage index
  */
 export class FlightModel implements OdeSystem {
   readonly air: Air;
+  readonly earth: Earth;
   readonly wind: MeanWind;
   readonly gusts: GustField;
   private readonly scenario: Scenario;
@@ -89,7 +116,24 @@ export class FlightModel implements OdeSystem {
   private readonly stopAtKnots: boolean;
   private readonly referenceArea: number;
   private readonly options: FlightOptions;
-  private readonly solver = new Dopri5(6);
+  private readonly solver: Dopri5;
+  /** A rocket with a shape: state of 15 (position, velocity, body axis, angular rate, misalignment direction). */
+  readonly rigid: boolean;
+  // Rigid body, per scenario: Barrowman moment sums (body; fins at Mach 0) and geometry.
+  private readonly b0: number = 0;
+  private readonly b1: number = 0;
+  private readonly b2: number = 0;
+  private readonly f0: number = 0;
+  private readonly f1: number = 0;
+  private readonly f2: number = 0;
+  private readonly motorEnd: number = 0;
+  private readonly propellantAt: number = 0;
+  private readonly nominalDryInertia: number = 0;
+  // Rigid body, per sample.
+  private dryCg = 0;
+  private dryInertia = 0;
+  private sinMis = 0;
+  private cosMis = 1;
 
   private readonly recovery: RecoverySchedule;
 
@@ -109,13 +153,15 @@ export class FlightModel implements OdeSystem {
 
   private readonly w = new Float64Array(3);
   private readonly acc = new Float64Array(3);
-  private readonly probe = new Float64Array(6);
+  private readonly probe: Float64Array;
+  private readonly direction = new Float64Array(3);
 
   constructor(scenario: Scenario, options: Partial<FlightOptions> = {}) {
     this.scenario = scenario;
     this.options = { ...DEFAULT_FLIGHT_OPTIONS, ...options };
     const weather = scenario.weather;
     this.air = this.options.air ?? new AirModel(scenario.site.pad.elevation, weather.temperature, weather.pressure);
+    this.earth = this.options.earth ?? new EarthModel(scenario.site.pad.lat, scenario.site.pad.elevation);
     this.wind = new MeanWind(weather.wind);
     this.gusts = new GustField();
     this.dragCurve = new DragCurve(scenario.vehicle.drag);
@@ -123,9 +169,33 @@ export class FlightModel implements OdeSystem {
     this.stopAtKnots = this.motor !== null && this.motor.knots <= 256;
     this.referenceArea = scenario.vehicle.referenceArea;
     this.recovery = new RecoverySchedule(scenario.vehicle.kind === 'projectile' ? [] : scenario.recovery);
+    const v = scenario.vehicle;
+    this.rigid = v.kind === 'rocket' && v.shape !== undefined && v.diameter !== undefined && v.motor?.length !== undefined;
+    const n = this.rigid ? 15 : 6;
+    this.solver = new Dopri5(n);
+    this.probe = new Float64Array(n);
+    if (this.rigid) {
+      const shape = v.shape!;
+      const table = aeroTable(shape, v.diameter!);
+      const k = this.options.normalForceScale;
+      this.b0 = k * table.b0;
+      this.b1 = k * table.b1;
+      this.b2 = k * table.b2;
+      this.f0 = k * table.f0;
+      this.f1 = k * table.f1;
+      this.f2 = k * table.f2;
+      this.motorEnd = shape.motorEnd;
+      this.propellantAt = shape.motorEnd - v.motor!.length! / 2;
+      this.nominalDryInertia = massLayout(v.mass, v.motor!.propellantMass, shape.cg, shape.inertia, this.propellantAt).dryInertia;
+    }
     const atol = this.solver.atol;
     atol[0] = atol[1] = atol[2] = this.options.atolPosition;
     atol[3] = atol[4] = atol[5] = this.options.atolVelocity;
+    if (this.rigid) {
+      atol[6] = atol[7] = atol[8] = this.options.atolAttitude;
+      atol[9] = atol[10] = atol[11] = this.options.atolRate;
+      atol[12] = atol[13] = atol[14] = this.options.atolAttitude;
+    }
     this.solver.rtol = this.options.rtol;
   }
 
@@ -134,6 +204,10 @@ export class FlightModel implements OdeSystem {
   }
 
   derivative(t: number, y: Float64Array, dy: Float64Array): void {
+    if (this.rigid) {
+      this.rigidDerivative(t, y, dy);
+      return;
+    }
     const z = y[2];
     const w = this.w;
     this.wind.at(z, w);
@@ -163,7 +237,9 @@ export class FlightModel implements OdeSystem {
     const acc = this.acc;
     acc[0] = 0;
     acc[1] = 0;
-    acc[2] = -G0;
+    acc[2] = -this.earth.gravityAt(z);
+    // The frame turns with the Earth: Coriolis acts on the velocity over the ground.
+    addCoriolis(this.earth, y[3], y[4], y[5], acc);
     addDragAcceleration((rho * cda) / (2 * mass), vx, vy, vz, acc, 0);
     let ax = acc[0];
     let ay = acc[1];
@@ -202,6 +278,157 @@ export class FlightModel implements OdeSystem {
   }
 
   /**
+   * The rigid body of the format's "vehicle.shape": y[6..8] the body axis u (nose forward, unit),
+   * y[9..11] the angular rate ω (across the axis: no roll), y[12..14] a body-fixed unit vector p
+   * across the axis, toward which the misaligned thrust leans. Forces: gravity and Coriolis as the
+   * point mass, drag along −v_rel, the normal force −½ρ|v_rel| A ΣCNα v_rel⊥ (= q A CNα sin α
+   * against the cross-flow), thrust along cos δ u + sin δ p. Moments about the current balance
+   * point: the parts' normal forces at their CPs, aerodynamic and jet damping, the misaligned
+   * thrust. Under a deployed stage the vehicle is the point mass of `derivative`, attitude frozen.
+   */
+  private rigidDerivative(t: number, y: Float64Array, dy: Float64Array): void {
+    const z = y[2];
+    const w = this.w;
+    this.wind.at(z, w);
+    w[2] = 0;
+    this.gusts.addAt(z, w);
+    const vx = y[3] - w[0];
+    const vy = y[4] - w[1];
+    const vz = y[5] - w[2];
+    const speed = Math.sqrt(vx * vx + vy * vy + vz * vz);
+    const dry = this.dryMass;
+    let propellant = 0;
+    let thrust = 0;
+    let totalImpulse = 1;
+    if (this.motor !== null) {
+      this.motor.evaluate(t);
+      propellant = this.motor.propellantNow;
+      thrust = this.motor.thrustNow;
+      totalImpulse = this.motor.totalImpulse;
+    }
+    const mass = dry + propellant;
+    const rho = this.air.densityAt(z);
+    const acc = this.acc;
+    acc[0] = 0;
+    acc[1] = 0;
+    acc[2] = -this.earth.gravityAt(z);
+    addCoriolis(this.earth, y[3], y[4], y[5], acc);
+    let ax: number, ay: number, az: number;
+    const stageArea = this.recovery.activeDragArea;
+    // Attitude rates; zero on the rail and under a canopy.
+    let dux = 0, duy = 0, duz = 0, dwx = 0, dwy = 0, dwz = 0, dpx = 0, dpy = 0, dpz = 0;
+    if (stageArea > 0) {
+      addDragAcceleration((rho * stageArea) / (2 * mass), vx, vy, vz, acc, 0);
+      ax = acc[0];
+      ay = acc[1];
+      az = acc[2];
+      if (thrust > 0 && speed > 1e-9) {
+        const g = thrust / mass / speed;
+        ax += g * vx;
+        ay += g * vy;
+        az += g * vz;
+      }
+    } else {
+      const mach = speed / this.air.speedOfSoundAt(z);
+      const A = this.referenceArea;
+      addDragAcceleration((rho * this.cdScale * this.dragCurve.at(mach) * A) / (2 * mass), vx, vy, vz, acc, 0);
+      // Body axis (renormalised against drift) and the misalignment direction.
+      let ux = y[6], uy = y[7], uz = y[8];
+      const un = 1 / Math.sqrt(ux * ux + uy * uy + uz * uz);
+      ux *= un;
+      uy *= un;
+      uz *= un;
+      const px = y[12], py = y[13], pz = y[14];
+      // Balance point and inertia with the propellant left (format: mass rules).
+      const xp = this.propellantAt;
+      const xcg = (dry * this.dryCg + propellant * xp) / mass;
+      const inertia = this.options.inertiaScale * (this.dryInertia + dry * (this.dryCg - xcg) ** 2 + propellant * (xp - xcg) ** 2);
+      // Barrowman sums at this Mach number: Σ CNα, Σ CNα (X − Xcg), Σ CNα (X − Xcg)².
+      const k = finMachFactor(mach);
+      const c0 = this.b0 + k * this.f0;
+      const c1 = this.b1 + k * this.f1;
+      const c2 = this.b2 + k * this.f2;
+      const s1 = c1 - xcg * c0;
+      const s2 = c2 - 2 * xcg * c1 + xcg * xcg * c0;
+      // Cross-flow: the part of v_rel across the axis.
+      const va = vx * ux + vy * uy + vz * uz;
+      const cx = vx - va * ux, cy = vy - va * uy, cz = vz - va * uz;
+      const hq = 0.5 * rho * speed * A;
+      const fn = (hq * c0) / mass;
+      ax = acc[0] - fn * cx;
+      ay = acc[1] - fn * cy;
+      az = acc[2] - fn * cz;
+      // Moment of the normal forces: ½ρ|v|A Σ CNα_i (X_i − X_cg) (u × v⊥).
+      let mx = hq * s1 * (uy * cz - uz * cy);
+      let my = hq * s1 * (uz * cx - ux * cz);
+      let mz = hq * s1 * (ux * cy - uy * cx);
+      if (thrust > 0) {
+        const f = thrust / mass;
+        ax += f * (this.cosMis * ux + this.sinMis * px);
+        ay += f * (this.cosMis * uy + this.sinMis * py);
+        az += f * (this.cosMis * uz + this.sinMis * pz);
+        // The lateral thrust acts at the nozzle exit: (X_cg − motorEnd) u × (T sin δ p).
+        const arm = thrust * this.sinMis * (xcg - this.motorEnd);
+        mx += arm * (uy * pz - uz * py);
+        my += arm * (uz * px - ux * pz);
+        mz += arm * (ux * py - uy * px);
+      }
+      const wx = y[9], wy = y[10], wz = y[11];
+      if (this.options.damping) {
+        // Aerodynamic and jet damping on the rate across the axis.
+        const mdot = this.motor !== null && totalImpulse > 0 ? (this.motor.propellantMass * thrust) / totalImpulse : 0;
+        const jet = this.motorEnd - xcg;
+        const c = this.options.dampingScale * (hq * s2 + mdot * jet * jet);
+        const wa = wx * ux + wy * uy + wz * uz;
+        mx -= c * (wx - wa * ux);
+        my -= c * (wy - wa * uy);
+        mz -= c * (wz - wa * uz);
+      }
+      if (!this.onRail) {
+        const ii = 1 / inertia;
+        dwx = mx * ii;
+        dwy = my * ii;
+        dwz = mz * ii;
+        // Body-fixed vectors turn with the body: du/dt = ω × u, dp/dt = ω × p.
+        dux = wy * y[8] - wz * y[7];
+        duy = wz * y[6] - wx * y[8];
+        duz = wx * y[7] - wy * y[6];
+        // p matters only with a misalignment; held still otherwise, so its drawn direction cannot
+        // change the step sizes (every sample without a misalignment flies the same flight).
+        if (this.sinMis !== 0) {
+          dpx = wy * pz - wz * py;
+          dpy = wz * px - wx * pz;
+          dpz = wx * py - wy * px;
+        }
+      }
+    }
+    if (this.onRail) {
+      let along = ax * this.railX + ay * this.railY + az * this.railZ;
+      const s = y[0] * this.railX + y[1] * this.railY + y[2] * this.railZ;
+      const vs = y[3] * this.railX + y[4] * this.railY + y[5] * this.railZ;
+      if (s <= 0 && vs <= 0 && along < 0) along = 0;
+      ax = along * this.railX;
+      ay = along * this.railY;
+      az = along * this.railZ;
+    }
+    dy[0] = y[3];
+    dy[1] = y[4];
+    dy[2] = y[5];
+    dy[3] = ax;
+    dy[4] = ay;
+    dy[5] = az;
+    dy[6] = dux;
+    dy[7] = duy;
+    dy[8] = duz;
+    dy[9] = dwx;
+    dy[10] = dwy;
+    dy[11] = dwz;
+    dy[12] = dpx;
+    dy[13] = dpy;
+    dy[14] = dpz;
+  }
+
+  /**
    * Flies one sample. `normal` draws N(0, 1) from the sample's own stream (for turbulence).
    * Writes the outcome to `out` and returns it.
    */
@@ -223,39 +450,42 @@ export class FlightModel implements OdeSystem {
     out.railExitSpeed = NaN;
     out.apogee = 0;
     out.apogeeTime = 0;
+    out.apogeeEast = 0;
+    out.apogeeNorth = 0;
     out.steps = 0;
+    out.maxMach = 0;
 
     let apogeeReached = false;
     let burning = this.motor !== null;
     const burnTime = this.motor !== null ? this.motor.burnTime : 0;
     const kind = sc.vehicle.kind;
+    const dir = this.direction;
     if (kind === 'rocket') {
-      const tilt = inputs.tilt * DEG;
-      const az = inputs.azimuth * DEG;
-      this.railX = Math.sin(tilt) * Math.sin(az);
-      this.railY = Math.sin(tilt) * Math.cos(az);
-      this.railZ = Math.cos(tilt);
+      launchDirection(inputs.tilt, inputs.azimuth, inputs.leanAcross, true, dir);
+      this.railX = dir[0];
+      this.railY = dir[1];
+      this.railZ = dir[2];
       this.railLength = sc.launch.kind === 'rocket' ? sc.launch.rail : 0;
       this.onRail = this.railLength > 0;
       y0.fill(0);
+      if (this.rigid) this.startRigid(inputs, dir, y0);
     } else if (kind === 'projectile') {
       this.onRail = false;
-      const el = inputs.elevation * DEG;
-      const az = inputs.azimuth * DEG;
+      launchDirection(inputs.elevation, inputs.azimuth, inputs.leanAcross, false, dir);
       y0[0] = 0;
       y0[1] = 0;
       y0[2] = inputs.height;
-      y0[3] = inputs.speed * Math.cos(el) * Math.sin(az);
-      y0[4] = inputs.speed * Math.cos(el) * Math.cos(az);
-      y0[5] = inputs.speed * Math.sin(el);
+      y0[3] = inputs.speed * dir[0];
+      y0[4] = inputs.speed * dir[1];
+      y0[5] = inputs.speed * dir[2];
     } else {
       this.onRail = false;
-      const hd = inputs.heading * DEG;
+      launchDirection(0, inputs.heading, 0, false, dir);
       y0[0] = inputs.east;
       y0[1] = inputs.north;
       y0[2] = inputs.height;
-      y0[3] = inputs.speed * Math.sin(hd);
-      y0[4] = inputs.speed * Math.cos(hd);
+      y0[3] = inputs.speed * dir[0];
+      y0[4] = inputs.speed * dir[1];
       y0[5] = 0;
     }
     solver.reset(y0);
@@ -265,6 +495,8 @@ export class FlightModel implements OdeSystem {
     if (track !== null) track(t, y);
     if (kind !== 'rocket' && y[5] <= 0) {
       apogeeReached = true;
+      out.apogeeEast = y[0];
+      out.apogeeNorth = y[1];
       recovery.onApogee(t, y[2]);
       recovery.deployDue(t);
     }
@@ -310,6 +542,7 @@ export class FlightModel implements OdeSystem {
       const yPrevS = this.onRail ? y[0] * this.railX + y[1] * this.railY + y[2] * this.railZ : 0;
       solver.accept();
       h = hTry * Dopri5.factor(err);
+      if (this.rigid) this.trackMach(y, out);
 
       // Find the earliest state event inside the step.
       let event = EV_NONE;
@@ -331,7 +564,9 @@ export class FlightModel implements OdeSystem {
           event = EV_APOGEE;
           tEvent = t;
         }
-        if (y[2] <= 0 && yPrevZ > 0) {
+        // Ground contact from the very first step: a flight that starts on the ground and moves
+        // down lands where it first goes below it (at once), rather than flying underground.
+        if ((y[2] <= 0 && yPrevZ > 0) || (y[2] < 0 && yPrevZ === 0)) {
           const te = this.locate(EV_GROUND, 0, t, tNew, yPrevZ, y[2]);
           if (te < tEvent || (te === tEvent && event !== EV_APOGEE)) { event = EV_GROUND; tEvent = te; }
         }
@@ -391,6 +626,8 @@ export class FlightModel implements OdeSystem {
         out.apogee = Math.max(out.apogee, ye[2]);
         recovery.onApogee(t, ye[2]);
         out.apogeeTime = t;
+        out.apogeeEast = ye[0];
+        out.apogeeNorth = ye[1];
         recovery.deployDue(t);
       } else {
         recovery.onAltitude(event - EV_STAGE, t);
@@ -400,6 +637,53 @@ export class FlightModel implements OdeSystem {
       solver.reset(ye);
       h = Math.min(h, 0.05);
     }
+  }
+
+  /**
+   * Per-sample mass layout and the initial attitude: the axis along the rail, no rate, and the
+   * misalignment direction p at `misalignmentDirection` degrees around the axis, clockwise seen
+   * from behind, from the axis-normal direction nearest north (east for an axis along north).
+   */
+  private startRigid(inputs: FlightInputs, rail: Float64Array, y0: Float64Array): void {
+    const v = this.scenario.vehicle;
+    const shape = v.shape!;
+    const mp = v.motor!.propellantMass;
+    const cg = inputs.cg === inputs.cg ? inputs.cg : shape.cg;
+    const dry = this.dryMass;
+    this.dryCg = ((dry + mp) * cg - mp * this.propellantAt) / dry;
+    // The dry rocket's own inertia scales with its drawn mass (the shape stays).
+    this.dryInertia = (this.nominalDryInertia * dry) / v.mass;
+    this.sinMis = Math.sin(inputs.misalignment * DEG);
+    this.cosMis = Math.cos(inputs.misalignment * DEG);
+    const ux = rail[0], uy = rail[1], uz = rail[2];
+    // a: north (or east) with its part along the axis removed; b = a × u.
+    let rx = 0, ry = 1, rz = 0;
+    if (Math.abs(uy) > 0.9) { rx = 1; ry = 0; }
+    const along = rx * ux + ry * uy + rz * uz;
+    let ax = rx - along * ux, ay = ry - along * uy, az = rz - along * uz;
+    const an = 1 / Math.sqrt(ax * ax + ay * ay + az * az);
+    ax *= an;
+    ay *= an;
+    az *= an;
+    const bx = ay * uz - az * uy, by = az * ux - ax * uz, bz = ax * uy - ay * ux;
+    const c = Math.cos(inputs.misalignmentDirection * DEG);
+    const s = Math.sin(inputs.misalignmentDirection * DEG);
+    y0[6] = ux;
+    y0[7] = uy;
+    y0[8] = uz;
+    y0[9] = y0[10] = y0[11] = 0;
+    y0[12] = c * ax + s * bx;
+    y0[13] = c * ay + s * by;
+    y0[14] = c * az + s * bz;
+  }
+
+  /** Highest Mach number over the accepted steps (the stability estimates are subsonic). */
+  private trackMach(y: Float64Array, out: FlightResult): void {
+    const w = this.w;
+    this.wind.at(y[2], w);
+    const vx = y[3] - w[0], vy = y[4] - w[1], vz = y[5];
+    const mach = Math.sqrt(vx * vx + vy * vy + vz * vz) / this.air.speedOfSoundAt(y[2]);
+    if (mach > out.maxMach) out.maxMach = mach;
   }
 
   /**

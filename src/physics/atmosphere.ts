@@ -66,3 +66,37 @@ export function standardAtmosphere(geopotential: number, out: AirState = emptyAi
 export function emptyAirState(): AirState {
   return { temperature: 0, pressure: 0, density: 0, speedOfSound: 0 };
 }
+
+/**
+ * ∫ dH / T(H) from geopotential altitude h1 to h2 (m/K), with T the standard temperature plus a
+ * constant offset: exact on each layer, where T is linear in H (ln(T2/T1)/L, or ΔH/T where L = 0).
+ * Below the lowest layer base the first layer's lapse rate continues; above the model's top the
+ * temperature is held.
+ */
+export function inverseTemperatureIntegral(h1: number, h2: number, offset: number): number {
+  if (h2 < h1) return -inverseTemperatureIntegral(h2, h1, offset);
+  let sum = 0;
+  let a = h1;
+  while (a < h2) {
+    let i = 0;
+    while (i < LAYER_LAPSE.length - 1 && a >= LAYER_BASE_H[i + 1]) i++;
+    const above = a >= ATMOSPHERE_TOP;
+    const top = above ? Infinity : i + 1 < LAYER_BASE_H.length ? LAYER_BASE_H[i + 1] : Infinity;
+    const b = Math.min(h2, top);
+    const lapse = above ? 0 : LAYER_LAPSE[i];
+    const tAt = (h: number) => baseT[i] + LAYER_LAPSE[i] * (Math.min(h, ATMOSPHERE_TOP) - LAYER_BASE_H[i]) + offset;
+    sum += lapse === 0 ? (b - a) / tAt(a) : Math.log(tAt(b) / tAt(a)) / lapse;
+    a = b;
+  }
+  return sum;
+}
+
+/**
+ * Pressure (Pa) at geopotential altitude h on a day whose temperature is the standard one plus
+ * `offset` (K) at every height, given the pressure p1 at h1: the hydrostatic equation
+ * dp/dH = −g0 p / (R T(H)) integrated exactly, as the 1976 standard atmosphere builds its own
+ * pressures (with offset 0 this reproduces the standard pressure ratio).
+ */
+export function hydrostaticPressure(p1: number, h1: number, h: number, offset: number): number {
+  return p1 * Math.exp((-G0 / R_AIR) * inverseTemperatureIntegral(h1, h, offset));
+}

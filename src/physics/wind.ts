@@ -35,7 +35,7 @@ export class MeanWind {
   private sin = 0;
 
   constructor(wind: Wind, topHeight = 60_000) {
-    this.nominalSpeed = wind.speed;
+    this.nominalSpeed = referenceSpeed(wind);
     const rows = wind.profile && wind.profile.length > 0 ? [...wind.profile].sort((a, b) => a.altitude - b.altitude) : null;
     this.isPowerLaw = rows === null;
     const top = rows === null ? topHeight : Math.min(topHeight, rows[rows.length - 1].altitude);
@@ -51,16 +51,17 @@ export class MeanWind {
       this.tableEast[i] = -speed * Math.sin(from * DEG);
       this.tableNorth[i] = -speed * Math.cos(from * DEG);
     }
-    this.setSample(wind.speed, 0);
+    this.setSample(this.nominalSpeed, 0);
   }
 
   /**
    * Sets this sample's wind: `speed` is the mean speed at the reference height (m/s), `turn` an
-   * angle (deg) added to every direction.
+   * angle (deg) added to every direction. A profile is scaled as a whole by speed / (the profile's
+   * own speed at the reference height); a profile that is calm at the reference height cannot be
+   * scaled and keeps its rows as written (validation warns about a speed spread on it).
    */
   setSample(speed: number, turn: number): void {
     const ref = Math.max(0, speed);
-    // A profile with a calm nominal surface wind keeps its rows as written.
     this.scale = this.isPowerLaw ? ref : this.nominalSpeed > 0 ? ref / this.nominalSpeed : 1;
     this.cos = Math.cos(turn * DEG);
     this.sin = Math.sin(turn * DEG);
@@ -98,6 +99,16 @@ export class MeanWind {
 }
 
 const scratch = new Float64Array(2);
+
+/**
+ * The nominal mean wind speed at the reference height (m/s): `speed` for a power law, the
+ * profile's own speed there when a profile is given (what a `wind.speed` spread scales).
+ */
+export function referenceSpeed(wind: Wind): number {
+  if (!wind.profile || wind.profile.length === 0) return wind.speed;
+  const rows = [...wind.profile].sort((a, b) => a.altitude - b.altitude);
+  return profileAt(rows, wind.height, wind.shear)[0];
+}
 
 /** Speed and direction of a profile table at a height (power law below the lowest row). */
 export function profileAt(

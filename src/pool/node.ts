@@ -54,3 +54,17 @@ export function nodeWorkerFactory(script = nodeWorkerScript()): PoolWorkerFactor
     } satisfies PoolWorker;
   };
 }
+
+/**
+ * Starts `count` worker threads now, so they load their code while the main thread is still
+ * reading the scenario; the pool then takes these first. `dispose` stops any it did not take.
+ */
+export function prestartWorkers(factory: PoolWorkerFactory, count: number): { createWorker: PoolWorkerFactory; dispose(): void } {
+  const ready = Array.from({ length: count }, () => factory());
+  return {
+    createWorker: () => ready.shift() ?? factory(),
+    dispose() {
+      for (const worker of ready.splice(0)) worker.terminate();
+    },
+  };
+}

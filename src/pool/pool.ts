@@ -1,7 +1,8 @@
 import { chunkRanges, defaultChunkSize, type Progress } from '../dispersion/execute.js';
 import { planModes } from '../dispersion/modes.js';
-import { assembleChunks, type RunResult } from '../dispersion/results.js';
-import type { ChunkResult } from '../dispersion/runner.js';
+import type { RunResult } from '../dispersion/results.js';
+import { allocateChunk, type ChunkResult } from '../dispersion/runner.js';
+import { placeColumns, resultColumns } from '../dispersion/columns.js';
 import { ChunkFailedError, cancelledError } from './errors.js';
 import type { EngineJob, PoolWorker, PoolWorkerFactory } from './protocol.js';
 
@@ -22,6 +23,11 @@ export interface PoolOptions {
   onProgress?: (p: Progress) => void;
   /** Aborting stops every worker at once; the run then rejects with the signal's reason. */
   signal?: AbortSignal;
+  /**
+   * Fly only samples [first, first + count) of the run (a shard). Each sample's result still
+   * depends only on the scenario, seed, total sample count and its index.
+   */
+  range?: readonly [number, number];
 }
 
 export async function runInPool(job: EngineJob, options: PoolOptions): Promise<RunResult> {
@@ -30,10 +36,17 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
   const signal = options.signal;
   if (signal?.aborted) throw signal.reason ?? cancelledError();
 
-  const chunkSize = options.chunkSize ?? defaultChunkSize(samples, options.workers);
-  const ranges = chunkRanges(samples, chunkSize);
+  const range = options.range ?? ([0, samples] as const);
+  if (!(Number.isInteger(range[0]) && Number.isInteger(range[1]) && range[0] >= 0 && range[1] >= 1 && range[0] + range[1] <= samples)) {
+    throw new RangeError(`range: samples ${range[0]}+${range[1]} are not within the run's ${samples}`);
+  }
+  const chunkSize = options.chunkSize ?? defaultChunkSize(range[1], options.workers);
+  const ranges = chunkRanges(range[1], chunkSize).map(([start, count]): [number, number] => [range[0] + start, count]);
   const laneCount = Math.min(options.workers, ranges.length);
-  const finished: ChunkResult[] = [];
+  // Each chunk is copied into the run's columns as it arrives and then dropped, so a large run
+  // never holds its samples twice.
+  const all = allocateChunk(range[0], range[1]);
+  const filled = new Uint8Array(range[1]);
   const live = new Set<PoolWorker>();
   const started = Date.now();
   let nextRange = 0;
@@ -92,9 +105,11 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
     try {
       while (nextRange < ranges.length && !halted) {
         const [start, count] = ranges[nextRange++];
-        finished.push(await fly(start, count));
+        const chunk = await fly(start, count);
+        placeColumns(all, chunk);
+        filled.fill(1, chunk.start - range[0], chunk.start - range[0] + chunk.count);
         done += count;
-        options.onProgress?.({ done, total: samples, rate: done / Math.max(1e-3, (Date.now() - started) / 1000) });
+        options.onProgress?.({ done, total: range[1], rate: done / Math.max(1e-3, (Date.now() - started) / 1000) });
       }
     } catch (error) {
       halt(error);
@@ -120,13 +135,15 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
     for (const worker of live) worker.terminate();
     live.clear();
   }
-  return assembleChunks(samples, finished, planModes(job.scenario.failures, samples), seed);
+  const missing = filled.indexOf(0);
+  if (missing >= 0) throw new Error(`internal error: sample ${range[0] + missing} was never flown`);
+  return { ...all, plan: planModes(job.scenario.failures, samples), seed };
 }
 
 /** A worker that answers with the wrong samples must not slip through into the results. */
 function checkChunk(chunk: ChunkResult, start: number, count: number): void {
-  const arrays = [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.impactAngle, chunk.impactMass, chunk.mode, chunk.status, chunk.steps];
-  if (chunk.start !== start || chunk.count !== count || arrays.some((a) => a.length !== count)) {
+  const arrays = resultColumns(chunk).map(([, a]) => a);
+  if (chunk.start !== start || chunk.count !== count || arrays.length === 0 || arrays.some((a) => a.length !== count)) {
     throw new Error(`worker answered samples ${chunk.start}+${chunk.count} (arrays of ${arrays.map((a) => a.length).join('/')}) for ${start}+${count}`);
   }
 }

@@ -1,5 +1,6 @@
 import type { ChunkResult } from '../dispersion/runner.js';
 import type { Scenario } from '../scenario/types.js';
+import { resultColumns } from '../dispersion/columns.js';
 
 /**
  * What the pool and its workers say to each other. Only plain data crosses the boundary: the
@@ -55,7 +56,5 @@ export type PoolWorkerFactory = () => PoolWorker;
 
 /** The typed arrays of a chunk, listed so they can be handed over without a copy. */
 export function chunkBuffers(chunk: ChunkResult): ArrayBuffer[] {
-  return [chunk.east, chunk.north, chunk.apogee, chunk.flightTime, chunk.impactSpeed, chunk.impactAngle, chunk.impactMass, chunk.mode, chunk.status, chunk.steps].map(
-    (array) => array.buffer as ArrayBuffer,
-  );
+  return resultColumns(chunk).map(([, array]) => array.buffer as ArrayBuffer);
 }

@@ -7,12 +7,14 @@ import { writeKml } from '../analysis/kml.js';
 import { writeRiskGeoJSON } from '../risk/geojson.js';
 import type { Scenario } from '../scenario/types.js';
 import { landingsCsvChunks } from './landings-csv.js';
+import { landingsFlatGeobufChunks } from '../analysis/flatgeobuf.js';
+import { landingSubset } from '../analysis/thinning.js';
 import type { RunSummary } from './run-summary.js';
 import { reviewFacts, runDate } from './sheet/review-facts.js';
 import { sheetInputFromTexts } from './sheet/sheet-input.js';
 import { buildSheet } from './sheet/index.js';
 
-export type FileContent = string | Uint8Array | Iterable<string>;
+export type FileContent = string | Uint8Array | Iterable<string | Uint8Array>;
 
 export interface ResultFileOptions {
   /** When the results were computed (default: SOURCE_DATE_EPOCH when set, else now). */
@@ -41,7 +43,8 @@ export function buildResultFiles(
   const files: [string, FileContent][] = [
     ['landings.csv', landingsCsvChunks(set, frame)],
     ['summary.json', summaryText],
-    ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad)],
+    ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad, landingSubset(set))],
+    ['landings.fgb', landingsFlatGeobufChunks(set, scenario.site.pad, `Strewn landings: ${scenario.name}`)],
     ['scenario.json', scenarioText],
     ['review.json', reviewText],
   ];

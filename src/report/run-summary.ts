@@ -7,6 +7,7 @@ import { FAILURE_REASONS } from '../flight/status.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import { VERSION } from '../version.js';
 import { CAUTION } from './caution.js';
+import { nominalFigures, type ApogeePoint, type StabilitySummary } from './stability.js';
 import type { StudySensitivity } from '../sensitivity/study.js';
 import { riskSummary, type RiskSummary } from '../risk/index.js';
 
@@ -33,10 +34,19 @@ export interface RunSummary extends SummaryParts {
   modes: { name: string; probability: number; samples: number; landed: number }[];
   /** What drives the spread of the landings (absent when the scenario has no spreads). */
   sensitivity?: StudySensitivity;
+  /** Rockets with a shape: stability figures (scenario format, "vehicle.shape"). */
+  stability?: StabilitySummary;
+  /** Where the nominal flight's apogee is (absent when it failed before apogee). */
+  nominalApogee?: ApogeePoint;
   /** Risk to people, per flight (scenario-format.md, "Results"). */
   risk?: RiskSummary;
   scenarioWarnings: string[];
   caution: string;
+  /**
+   * Landings in each landing file: all of them, except that landings.geojson holds a stated,
+   * stratified subset (points, of, method) above 100,000 landings (src/analysis/thinning.ts).
+   */
+  landingFiles?: Record<string, { points: number; of?: number; method?: string }>;
 }
 
 function round(x: number, decimals: number): number {
@@ -46,12 +56,12 @@ function round(x: number, decimals: number): number {
 
 /** Weighted mean, 5th/50th/95th percentiles and maximum over landed samples. */
 function spread(values: Float64Array, weights: Float64Array, landed: Uint8Array): Spread5 {
-  const v: number[] = [];
-  const w: number[] = [];
-  for (let i = 0; i < values.length; i++) if (landed[i] === 0) { v.push(values[i]); w.push(weights[i]); }
-  if (v.length === 0) return { mean: NaN, p05: NaN, p50: NaN, p95: NaN, max: NaN };
-  const vv = Float64Array.from(v);
-  const ww = Float64Array.from(w);
+  let count = 0;
+  for (let i = 0; i < values.length; i++) if (landed[i] === 0) count++;
+  if (count === 0) return { mean: NaN, p05: NaN, p50: NaN, p95: NaN, max: NaN };
+  const vv = new Float64Array(count);
+  const ww = new Float64Array(count);
+  for (let i = 0, j = 0; i < values.length; i++) if (landed[i] === 0) { vv[j] = values[i]; ww[j++] = weights[i]; }
   let total = 0, first = 0, max = -Infinity;
   for (let i = 0; i < vv.length; i++) { total += ww[i]; first += ww[i] * vv[i]; if (vv[i] > max) max = vv[i]; }
   return {
@@ -112,8 +122,15 @@ export function buildRunSummary(
     })),
     ...parts,
     ...(sensitivity ? { sensitivity } : {}),
+    ...nominalParts(scenario),
     ...(analysis?.risk ? { risk: riskSummary(analysis.risk) } : {}),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };
+}
+
+/** The stability figures and the nominal apogee point, from one nominal flight. */
+function nominalParts(scenario: Scenario): { stability?: StabilitySummary; nominalApogee?: ApogeePoint } {
+  const f = nominalFigures(scenario);
+  return { ...(f.stability ? { stability: f.stability } : {}), ...(f.apogee ? { nominalApogee: f.apogee } : {}) };
 }

@@ -6,6 +6,7 @@ import type { Issue, Scenario } from '../scenario/types.js';
 import { studySensitivity } from '../sensitivity/study.js';
 import { riskSettings } from '../risk/settings.js';
 import { buildRunSummary, type RunSummary } from './run-summary.js';
+import { landingSubset } from '../analysis/thinning.js';
 
 /** A run is analysed only when at least this many samples landed; fewer draw no useful zone. */
 export const MIN_LANDINGS_FOR_ANALYSIS = 10;
@@ -32,5 +33,14 @@ export function studyOutcome(scenario: Scenario, hash: string, run: RunResult, w
       : null;
   const varies = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0;
   const sensitivity = varies ? studySensitivity(scenario, run) : undefined;
-  return { set, analysis, summary: buildRunSummary(scenario, hash, run, analysis, warnings, sensitivity) };
+  const subset = landingSubset(set);
+  const summary: RunSummary = {
+    ...buildRunSummary(scenario, hash, run, analysis, warnings, sensitivity),
+    landingFiles: {
+      'landings.csv': { points: set.east.length },
+      'landings.fgb': { points: set.east.length },
+      'landings.geojson': subset ? subset.description : { points: set.east.length },
+    },
+  };
+  return { set, analysis, summary };
 }

@@ -188,6 +188,8 @@ const LAUNCH_SPREAD_KINDS: Partial<Record<UncertaintyName, VehicleKind[]>> = {
   'launch.elevation': ['projectile'],
   'launch.height': ['projectile', 'release'],
   'motor.impulse': ['rocket'],
+  'motor.misalignment': ['rocket'],
+  'vehicle.cg': ['rocket'],
 };
 
 /** A spread on a parameter the scenario does not have is a mistake, not something to ignore silently. */
@@ -202,6 +204,9 @@ function uncertaintyChecks(raw: Record<string, unknown>, kind: VehicleKind | und
     const kinds = LAUNCH_SPREAD_KINDS[name as UncertaintyName];
     if (kind !== undefined && kinds !== undefined && !kinds.includes(kind)) {
       issues.push({ path, message: `a ${kind} has no ${name.split('.')[1]}; remove this spread` });
+    }
+    if ((name === 'motor.misalignment' || name === 'vehicle.cg') && kind === 'rocket' && isRecord(raw.vehicle) && raw.vehicle.shape === undefined) {
+      issues.push({ path, message: 'this spread needs vehicle.shape (a rocket without a shape flies as a point mass, which has no thrust line or balance point); give a shape or remove this spread' });
     }
     if ((name === 'recovery.delay' || name === 'recovery.rate') && !hasStages) {
       issues.push({ path, message: 'the scenario has no recovery stages; remove this spread' });

@@ -281,6 +281,8 @@ export interface SpreadRule {
   dimension: Dimension;
   /** 'only': must be "N %"; 'never': a percentage has no meaning (a compass direction). */
   relative: 'allowed' | 'only' | 'never';
+  /** Why a percentage is refused (with 'never'), as the message says it. */
+  why?: string;
 }
 
 /** The unit each parameter's absolute spread is in; `recovery.rate` scales drag areas, so it is relative only. */
@@ -288,16 +290,20 @@ export const SPREAD_RULES: Record<UncertaintyName, SpreadRule> = {
   'wind.speed': { dimension: 'speed', relative: 'allowed' },
   'wind.from': { dimension: 'angle', relative: 'never' },
   'wind.gust': { dimension: 'speed', relative: 'allowed' },
-  'launch.tilt': { dimension: 'angle', relative: 'allowed' },
+  // A lean is turned by two angles drawn from the spread (in and across the lean's plane), so it
+  // must be an angle: a percentage of a vertical rail's 0° would be no lean at all.
+  'launch.tilt': { dimension: 'angle', relative: 'never', why: 'a launch lean spread is an angle' },
   'launch.azimuth': { dimension: 'angle', relative: 'never' },
   'launch.speed': { dimension: 'speed', relative: 'allowed' },
-  'launch.elevation': { dimension: 'angle', relative: 'allowed' },
+  'launch.elevation': { dimension: 'angle', relative: 'never', why: 'a launch lean spread is an angle' },
   'launch.height': { dimension: 'length', relative: 'allowed' },
   'motor.impulse': { dimension: 'impulse', relative: 'allowed' },
   'vehicle.mass': { dimension: 'mass', relative: 'allowed' },
   'vehicle.drag': { dimension: 'number', relative: 'allowed' },
   'recovery.delay': { dimension: 'time', relative: 'allowed' },
   'recovery.rate': { dimension: 'number', relative: 'only' },
+  'motor.misalignment': { dimension: 'angle', relative: 'never', why: 'the nominal misalignment is 0, so a percentage of it is nothing' },
+  'vehicle.cg': { dimension: 'length', relative: 'allowed' },
 };
 
 const SPREAD_FIELDS = ['sd', 'limit', 'range'];
@@ -306,7 +312,7 @@ function readSpreadValue(value: unknown, rule: SpreadRule, bounds: Bounds, path:
   const r = readQuantity(value, rule.dimension, bounds, true);
   if (!r.ok) return { ok: false, problems: r.problems.map((p) => ({ ...p, path })) };
   if (rule.relative === 'never' && r.value.relative) {
-    return fail(`${r.value.shown} is relative, but a compass direction cannot vary by a percentage; give degrees, e.g. '5 deg'`, path);
+    return fail(`${r.value.shown} is relative, but ${rule.why ?? 'a compass direction cannot vary by a percentage'}; give degrees, e.g. '5 deg'`, path);
   }
   if (rule.relative === 'only' && !r.value.relative) {
     return fail(`${r.value.shown} is not relative; this spread scales every stage's drag area, so write it as a percentage, e.g. '10 %'`, path);

@@ -1,5 +1,6 @@
 import type { RawDrag } from './fields.js';
-import type { ParsedBody, ParsedScenario, ParsedStage, ParsedWeather } from './schema.js';
+import type { ParsedBody, ParsedRocketVehicle, ParsedScenario, ParsedStage, ParsedWeather } from './schema.js';
+import { shapeLength } from './shape-checks.js';
 import {
   UNCERTAINTY_NAMES,
   type DragTable,
@@ -7,6 +8,7 @@ import {
   type Motor,
   type RecoveryStage,
   type RiskInput,
+  type RocketShape,
   type RunSettings,
   type Scenario,
   type Site,
@@ -112,10 +114,33 @@ function normalizeVehicle(body: ParsedBody, thrust: { curve: ThrustCurve; source
   const vehicle: Vehicle = { kind: body.kind, mass: v.mass, referenceArea, drag: dragTable(v.drag) };
   if (body.kind === 'rocket') {
     if (thrust === undefined) throw new Error('normalizeScenario: a rocket needs its checked thrust curve');
-    const motor: Motor = { thrust: thrust.curve, source: thrust.source, propellantMass: body.vehicle.motor.propellantMass };
+    const parsedMotor = body.vehicle.motor;
+    const motor: Motor = { thrust: thrust.curve, source: thrust.source, propellantMass: parsedMotor.propellantMass };
+    if (parsedMotor.length !== undefined) motor.length = parsedMotor.length;
     vehicle.motor = motor;
+    if (body.vehicle.shape !== undefined) {
+      // The shape requires a diameter (checked): the nose base and the calibre.
+      vehicle.diameter = v.diameter;
+      vehicle.shape = normalizeShape(body.vehicle);
+    }
   }
   return vehicle;
+}
+
+/** Defaults of vehicle.shape filled: length, inertia (m L²/12, m ready to fly), motorEnd. */
+function normalizeShape(v: ParsedRocketVehicle): RocketShape {
+  const shape = v.shape!;
+  const length = shapeLength(v);
+  const readyMass = v.mass + v.motor.propellantMass;
+  return {
+    nose: { form: shape.nose.form, length: shape.nose.length },
+    transitions: (shape.transitions ?? []).map((t) => ({ position: t.position, length: t.length, foreDiameter: t.foreDiameter, aftDiameter: t.aftDiameter })),
+    fins: shape.fins.map((f) => ({ count: f.count, position: f.position, rootChord: f.rootChord, tipChord: f.tipChord, span: f.span, sweep: f.sweep })),
+    length,
+    cg: shape.cg,
+    inertia: shape.inertia ?? (readyMass * length * length) / 12,
+    motorEnd: shape.motorEnd ?? length,
+  };
 }
 
 /** A constant Cd becomes a one-row table; the table is held constant outside its rows anyway. */

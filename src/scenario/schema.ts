@@ -30,6 +30,7 @@ import {
   type PathPart,
 } from './fields.js';
 import { casualtyTable, peopleDensity, perFlight, riskLevels, shelteredShare } from './risk-fields.js';
+import { shapeIssues } from './shape-checks.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
 
 /**
@@ -96,6 +97,45 @@ const commonVehicle = {
   drag,
 };
 
+export const NOSE_FORMS = ['cone', 'ogive', 'parabola'] as const;
+
+const finCount = leaf((value): LeafResult<3 | 4> => {
+  if (value === 3 || value === 4) return ok(value);
+  if (value === undefined) return fail('missing (required); expected 3 or 4 fins');
+  return fail(`${describeValue(value)} is not a fin count this model knows; expected 3 or 4`);
+});
+
+/** vehicle.shape as the format's "vehicle.shape (rockets)" defines it; geometry checks in shape-checks.ts. */
+const shapeSchema = strict({
+  nose: strict({ form: oneOf(NOSE_FORMS), length: quantity('length', POSITIVE) }),
+  transitions: z
+    .array(
+      strict({
+        position: quantity('length', POSITIVE),
+        length: quantity('length', POSITIVE),
+        foreDiameter: quantity('length', NOT_NEGATIVE),
+        aftDiameter: quantity('length', NOT_NEGATIVE),
+      }),
+    )
+    .optional(),
+  fins: z
+    .array(
+      strict({
+        count: finCount,
+        position: quantity('length', POSITIVE),
+        rootChord: quantity('length', POSITIVE),
+        tipChord: quantity('length', NOT_NEGATIVE),
+        span: quantity('length', POSITIVE),
+        sweep: quantity('length'),
+      }),
+    )
+    .min(1),
+  length: optionalQuantity('length', POSITIVE),
+  cg: quantity('length', POSITIVE),
+  inertia: optionalQuantity('inertia', POSITIVE),
+  motorEnd: optionalQuantity('length', POSITIVE),
+});
+
 const rocketVehicleSchema = strict({
   kind: oneOf(['rocket'] as const),
   ...commonVehicle,
@@ -103,7 +143,9 @@ const rocketVehicleSchema = strict({
     // Checked by thrust.ts, which may have to read a CSV file first (and reports it missing).
     thrust: z.unknown().optional(),
     propellantMass: quantity('mass', POSITIVE),
+    length: optionalQuantity('length', POSITIVE),
   }),
+  shape: shapeSchema.optional(),
 });
 
 const plainVehicleSchema = (kind: 'projectile' | 'release') =>
@@ -111,13 +153,14 @@ const plainVehicleSchema = (kind: 'projectile' | 'release') =>
     kind: oneOf([kind] as const),
     ...commonVehicle,
     motor: forbidden(`a ${kind} has no motor; remove it, or set vehicle.kind to 'rocket'`),
+    shape: forbidden(`a ${kind} flies as a point mass and has no shape; remove it, or set vehicle.kind to 'rocket'`),
   });
 
 const projectileVehicleSchema = plainVehicleSchema('projectile');
 const releaseVehicleSchema = plainVehicleSchema('release');
 
 /** Used only to report problems when vehicle.kind is missing or misspelt. */
-const unknownKindVehicleSchema = strict({ kind: oneOf(VEHICLE_KINDS), ...commonVehicle, motor: z.unknown().optional() });
+const unknownKindVehicleSchema = strict({ kind: oneOf(VEHICLE_KINDS), ...commonVehicle, motor: z.unknown().optional(), shape: z.unknown().optional() });
 
 const rocketLaunchSchema = strict({
   rail: quantity('length', NOT_NEGATIVE),
@@ -286,6 +329,8 @@ function parseBody(vehicle: unknown, launch: unknown, issues: Issue[]): ParsedBo
     case 'rocket': {
       const v = parseWith(rocketVehicleSchema, vehicle, ['vehicle'], issues);
       const l = parseWith(rocketLaunchSchema, launch, ['launch'], issues);
+      // The shape's geometry can be judged once its numbers are read.
+      if (v !== undefined) issues.push(...shapeIssues(v));
       return v && l && { kind, vehicle: v, launch: l };
     }
     case 'projectile': {

@@ -23,6 +23,49 @@ export interface Motor {
   /** Where the curve came from: "inline" or the CSV path as written in the scenario. */
   source: string;
   propellantMass: number;
+  /** Motor length, m (required with a shape: the propellant sits at motorEnd − length/2). */
+  length?: number;
+}
+
+export type NoseForm = 'cone' | 'ogive' | 'parabola';
+
+/** A conical shoulder or boattail; positions from the nose tip, m. */
+export interface Transition {
+  position: number;
+  length: number;
+  foreDiameter: number;
+  aftDiameter: number;
+}
+
+/** A set of identical fins; positions from the nose tip, m. */
+export interface FinSet {
+  count: 3 | 4;
+  /** Root leading edge from the nose tip. */
+  position: number;
+  rootChord: number;
+  tipChord: number;
+  /** One fin, body to tip. */
+  span: number;
+  /** Root leading edge to tip leading edge, along the body. */
+  sweep: number;
+}
+
+/**
+ * The rocket's outside shape and balance, every default filled (see the format's
+ * "vehicle.shape"). With a shape the rocket flies as a rigid body.
+ */
+export interface RocketShape {
+  nose: { form: NoseForm; length: number };
+  transitions: Transition[];
+  fins: FinSet[];
+  /** Nose tip to the aft end, m. */
+  length: number;
+  /** Balance point ready to fly, motor loaded, from the nose tip, m. */
+  cg: number;
+  /** Transverse moment of inertia about `cg`, ready to fly, kg m². */
+  inertia: number;
+  /** Nose tip to the nozzle exit, m. */
+  motorEnd: number;
 }
 
 export interface Vehicle {
@@ -33,6 +76,10 @@ export interface Vehicle {
   referenceArea: number;
   drag: DragTable;
   motor?: Motor;
+  /** Body diameter, m (rockets with a shape: the nose base and the reference for calibres). */
+  diameter?: number;
+  /** Rockets only: with a shape the rocket flies as a rigid body, without one as a point mass. */
+  shape?: RocketShape;
 }
 
 export interface RocketLaunch {
@@ -118,6 +165,8 @@ export interface Weather {
  * (of the whole curve), kg for vehicle.mass, a plain Cd for vehicle.drag, s for recovery.delay.
  * recovery.rate is always relative (it scales every stage's drag area); wind.from and
  * launch.azimuth are never relative. For a release, launch.azimuth varies the heading.
+ * motor.misalignment (deg, the angle between thrust line and body axis; its direction around the
+ * axis is drawn uniform) and vehicle.cg (m) apply to rockets with a shape.
  */
 export type UncertaintyName =
   | 'wind.speed'
@@ -132,7 +181,9 @@ export type UncertaintyName =
   | 'vehicle.mass'
   | 'vehicle.drag'
   | 'recovery.delay'
-  | 'recovery.rate';
+  | 'recovery.rate'
+  | 'motor.misalignment'
+  | 'vehicle.cg';
 
 export const UNCERTAINTY_NAMES: readonly UncertaintyName[] = [
   'wind.speed',
@@ -148,6 +199,8 @@ export const UNCERTAINTY_NAMES: readonly UncertaintyName[] = [
   'vehicle.drag',
   'recovery.delay',
   'recovery.rate',
+  'motor.misalignment',
+  'vehicle.cg',
 ];
 
 /**

@@ -19,7 +19,8 @@ export type Dimension =
   | 'angle'
   | 'time'
   | 'fraction'
-  | 'number';
+  | 'number'
+  | 'inertia';
 
 const FOOT = 0.3048;
 const INCH = 0.0254;
@@ -50,6 +51,18 @@ function areaUnits(): Record<string, ToSI> {
   const units: Record<string, ToSI> = {};
   for (const [name, length] of Object.entries(AREA_BASES)) {
     for (const suffix of ['2', '²', '^2']) units[`${name}${suffix}`] = scale(length * length);
+  }
+  return units;
+}
+
+/** Moment-of-inertia units: a mass unit times a squared length unit ("kg m2", "lb in²", "g cm^2"). */
+function inertiaUnits(): Record<string, ToSI> {
+  const masses: Record<string, number> = { kg: 1, g: 0.001, lb: POUND, oz: POUND / 16 };
+  const units: Record<string, ToSI> = {};
+  for (const [m, mf] of Object.entries(masses)) {
+    for (const [l, lf] of Object.entries(AREA_BASES)) {
+      for (const suffix of ['2', '²', '^2']) units[`${m} ${l}${suffix}`] = scale(mf * lf * lf);
+    }
   }
   return units;
 }
@@ -148,6 +161,12 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     si: '',
     listed: [],
     units: { '%': (x) => x / 100 },
+  },
+  inertia: {
+    label: 'a moment of inertia',
+    si: 'kg m2',
+    listed: ['kg m2', 'g cm2', 'lb ft2', 'lb in2'],
+    units: inertiaUnits(),
   },
   number: {
     label: 'a plain number',

@@ -1,6 +1,7 @@
 import { descentRateForDragArea } from './normalize.js';
 import { formatNumber } from './units.js';
 import type { Issue, Scenario } from './types.js';
+import { stabilityFigures } from '../physics/aero.js';
 
 /**
  * Values outside common hobby practice. They are warnings, not errors: the governing numbers are
@@ -18,6 +19,9 @@ export const WARNING_LIMITS = {
   maxDescentRate: 40,
   /** m/s; the slowest rail exit usually considered stable (about 50 ft/s). */
   minRailExitSpeed: 15,
+  /** Static margin, calibres: under 1 is marginally stable, over 6 overstable (weathercocks hard). */
+  minMargin: 1,
+  maxMargin: 6,
 } as const;
 
 /** A check that needs only the normalised scenario. */
@@ -28,7 +32,39 @@ export const scenarioWarnings: ScenarioCheck = (scenario) => [
   ...railTiltWarnings(scenario),
   ...surfaceWindWarnings(scenario),
   ...descentRateWarnings(scenario),
+  ...shapeWarnings(scenario),
 ];
+
+/** A rocket without a shape flies as a point mass; one with a shape gets its margin checked. */
+export function shapeWarnings(scenario: Scenario): Issue[] {
+  const v = scenario.vehicle;
+  if (v.kind !== 'rocket') return [];
+  if (v.shape === undefined || v.diameter === undefined || v.motor?.length === undefined) {
+    return [{ path: 'vehicle.shape', message: POINT_MASS_ROCKET_WARNING }];
+  }
+  const f = stabilityFigures(v.shape, v.diameter, v.mass, v.motor.propellantMass, v.motor.length);
+  const issues: Issue[] = [];
+  const judge = (margin: number, when: string, path: string) => {
+    if (margin < WARNING_LIMITS.minMargin) {
+      issues.push({
+        path,
+        message: `the static margin ${when} is ${formatNumber(Number(margin.toFixed(2)))} calibres, under the ${WARNING_LIMITS.minMargin} calibre usually asked for${margin < 0 ? ' (the CP is ahead of the CG: the rocket is unstable)' : ''}; check the shape and the balance point`,
+      });
+    } else if (margin > WARNING_LIMITS.maxMargin) {
+      issues.push({
+        path,
+        message: `the static margin ${when} is ${formatNumber(Number(margin.toFixed(2)))} calibres, over the ${WARNING_LIMITS.maxMargin} calibres beyond which a rocket turns hard into the wind; check the shape and the balance point`,
+      });
+    }
+  };
+  judge(f.margin_cal, 'at lift-off', 'vehicle.shape.cg');
+  judge(f.marginBurnout_cal, 'at burnout', 'vehicle.shape.cg');
+  return issues;
+}
+
+/** Shown wherever a rocket without a shape is flown (check, run, sheet, page). */
+export const POINT_MASS_ROCKET_WARNING =
+  "this rocket has no shape, so it flies as a point mass whose thrust turns into the air-relative wind the moment it leaves the rail; that overstates weathercocking (apogee and no-recovery landings too far upwind); give vehicle.shape and motor.length to fly it as a rigid body";
 
 export function railTiltWarnings(scenario: Scenario): Issue[] {
   const launch = scenario.launch;
@@ -77,6 +113,17 @@ export function railExitSpeedWarnings(scenario: Scenario, railExitSpeed: number)
     {
       path: 'launch.rail',
       message: `the rocket leaves the rail at ${formatNumber(railExitSpeed)} m/s, below the ${WARNING_LIMITS.minRailExitSpeed} m/s usually needed for a stable flight; use a longer rail or a stronger motor`,
+    },
+  ];
+}
+
+/** For the flight code: a flight faster than Mach 0.8 leaves the range of the subsonic stability estimates. */
+export function machWarnings(scenario: Scenario, maxMach: number): Issue[] {
+  if (scenario.vehicle.shape === undefined || !(maxMach > 0.8)) return [];
+  return [
+    {
+      path: 'vehicle.shape',
+      message: `the nominal flight reaches Mach ${formatNumber(Number(maxMach.toFixed(2)))}; the stability figures and the rigid-body flight use subsonic estimates (fins corrected only to Mach 0.8), so treat them as rough above it`,
     },
   ];
 }

@@ -38,29 +38,31 @@ export function studySensitivity(scenario: Scenario, run: RunResult): StudySensi
   const weights = sampleWeights(run);
   const n = run.count;
   const names = UNCERTAINTY_NAMES.map((name, j) => ({ name, j })).filter(({ name }) => scenario.uncertainty[name] !== undefined);
-  const uniforms = names.map(() => new Float64Array(n));
+  const classes = defaultClassCount(n);
+  // Only each uniform's class is kept (two bytes a sample, not eight): it is all the index needs.
+  const classIndex = names.map(() => new Uint16Array(n));
   const stream = new SampleStream();
   const all = new Float64Array(UNCERTAINTY_NAMES.length);
   for (let i = 0; i < n; i++) {
     if (!(weights[i] > 0)) continue;
     stream.select(run.seed, i);
     readSpreadUniforms(stream, all);
-    names.forEach(({ j }, k) => (uniforms[k][i] = all[j]));
+    names.forEach(({ j }, k) => (classIndex[k][i] = uniformClass(all[j], classes)));
   }
   const distance = new Float64Array(n);
   for (let i = 0; i < n; i++) distance[i] = weights[i] > 0 ? Math.hypot(run.east[i], run.north[i]) : 0;
   const east = run.east.map((v, i) => (weights[i] > 0 ? v : 0));
   const north = run.north.map((v, i) => (weights[i] > 0 ? v : 0));
-  const classes = defaultClassCount(n);
+  const ve = weightedVariance(east, weights);
+  const vn = weightedVariance(north, weights);
   const scatterIndex = (classOf: (i: number) => number, m: number) => {
-    const ve = weightedVariance(east, weights);
-    const vn = weightedVariance(north, weights);
     const se = firstOrderIndex(classOf, m, east, weights);
     const sn = firstOrderIndex(classOf, m, north, weights);
     return ve + vn > 0 ? (se * ve + sn * vn) / (ve + vn) : 0;
   };
   const inputs: InputSensitivity[] = names.map(({ name }, k) => {
-    const classOf = (i: number) => uniformClass(uniforms[k][i], classes);
+    const column = classIndex[k];
+    const classOf = (i: number) => column[i];
     return { input: name, distance: firstOrderIndex(classOf, classes, distance, weights), scatter: scatterIndex(classOf, classes) };
   });
   if (run.plan.names.length > 1) {

@@ -6,8 +6,7 @@
  * Environment: BENCH_POOL_SAMPLES samples per throughput run (default 40,000: long enough that
  * starting the workers and warming up their compiled code are a small part of it);
  * BENCH_POOL_PAIRS pairs of runs, one worker and all cores back to back (default 3);
- * BENCH_E2E_SAMPLES (default 100,000); BENCH_SKIP_1M=1 skips the 1,000,000-sample memory run
- * (two to four minutes on two cores).
+ * BENCH_E2E_SAMPLES (default 100,000).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -87,7 +86,6 @@ export function measureCli(root: string, scenarioFile: string, samples: number):
 
 const TARGET_SPEED_UP = 1.8;
 const TARGET_E2E_SECONDS = 20;
-const TARGET_PEAK_MB = 600;
 
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);
@@ -131,10 +129,5 @@ export async function poolBench(root: string): Promise<void> {
   const e2e = measureCli(root, file, e2eSamples);
   console.log(`strewn run, ${e2eSamples.toLocaleString('en')} samples end to end on ${cores} workers: ${e2e.seconds.toFixed(1)} s, peak ${e2e.peakRssMB.toFixed(0)} MB  (target < ${TARGET_E2E_SECONDS} s: ${verdict(e2e.seconds < TARGET_E2E_SECONDS)})${contention(e2e)}`);
 
-  if (process.env.BENCH_SKIP_1M === '1') {
-    console.log('strewn run, 1,000,000 samples: skipped (BENCH_SKIP_1M=1)');
-    return;
-  }
-  const big = measureCli(root, file, 1_000_000);
-  console.log(`strewn run, 1,000,000 samples end to end: ${big.seconds.toFixed(1)} s, peak ${big.peakRssMB.toFixed(0)} MB  (target < ${TARGET_PEAK_MB} MB: ${verdict(big.peakRssMB < TARGET_PEAK_MB)})${contention(big)}`);
+  // The 1,000,000-sample run, with its memory target, is in scale.ts.
 }

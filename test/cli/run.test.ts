@@ -17,7 +17,7 @@ describe('strewn run on the demo scenarios', () => {
     expect(r.status).toBe(0);
     expect(r.stdout).toContain('never replace');
     const files = readdirSync(r.out).sort();
-    expect(files).toEqual(['areas.csv', 'contours.geojson', 'keepout.geojson', 'landings.csv', 'landings.geojson', 'map.svg', 'result.kml', 'review.json', 'scenario.json', 'sheet.pdf', 'summary.json']);
+    expect(files).toEqual(['areas.csv', 'contours.geojson', 'keepout.geojson', 'landings.csv', 'landings.fgb', 'landings.geojson', 'map.svg', 'result.kml', 'review.json', 'scenario.json', 'sheet.pdf', 'summary.json']);
     const csv = readFileSync(join(r.out, 'landings.csv'), 'utf8').trimEnd().split('\n');
     expect(csv[0]).toBe(HEADER);
     const summary = JSON.parse(readFileSync(join(r.out, 'summary.json'), 'utf8'));

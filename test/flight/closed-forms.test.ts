@@ -3,12 +3,14 @@ import { FlightModel, emptyResult } from '../../src/flight/flight.js';
 import { emptyInputs, type FlightInputs } from '../../src/flight/inputs.js';
 import { FlightStatus } from '../../src/flight/status.js';
 import { G0 } from '../../src/physics/constants.js';
+import { uniformEarth } from '../../src/physics/earth.js';
 import type { Scenario } from '../../src/scenario/types.js';
 import { body, constantAir, scenario } from '../helpers/build.js';
 
 const noNoise = () => 0;
 /** Tight tolerances: these tests check the equations, not the default accuracy/speed trade. */
-const TIGHT = { rtol: 1e-10, atolPosition: 1e-9, atolVelocity: 1e-9 };
+// The textbook closed forms assume uniform gravity g0 and a frame that does not turn.
+const TIGHT = { rtol: 1e-10, atolPosition: 1e-9, atolVelocity: 1e-9, earth: uniformEarth() };
 
 function projectileInputs(speed: number, elevation: number, azimuth = 0, height = 0): FlightInputs {
   const inputs = emptyInputs(0);

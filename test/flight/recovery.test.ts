@@ -3,6 +3,7 @@ import { FlightModel, emptyResult } from '../../src/flight/flight.js';
 import { emptyInputs } from '../../src/flight/inputs.js';
 import { locateCrossing } from '../../src/flight/locate-crossing.js';
 import { G0 } from '../../src/physics/constants.js';
+import { uniformEarth } from '../../src/physics/earth.js';
 import type { RecoveryStage } from '../../src/scenario/types.js';
 import { body, constantAir, scenario } from '../helpers/build.js';
 
@@ -10,7 +11,7 @@ const RHO = 1.2;
 const M = 1;
 const CD = 0.5;
 const AREA = 0.01;
-const TIGHT = { rtol: 1e-10, atolPosition: 1e-9, atolVelocity: 1e-9, air: constantAir(RHO) };
+const TIGHT = { rtol: 1e-10, atolPosition: 1e-9, atolVelocity: 1e-9, air: constantAir(RHO), earth: uniformEarth() };
 
 /** Release from 400 m at rest; returns the landing time for the given stages and inputs. */
 function drop(stages: RecoveryStage[], edit: (i: ReturnType<typeof emptyInputs>) => void = () => {}) {

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { FlightModel, emptyResult } from '../../src/flight/flight.js';
 import { emptyInputs } from '../../src/flight/inputs.js';
 import { G0 } from '../../src/physics/constants.js';
+import { uniformEarth } from '../../src/physics/earth.js';
 import { body, constantAir, scenario } from '../helpers/build.js';
 
 // Drag acts against the air-relative velocity with magnitude ½ρCdA|v_rel|²; for v_rel = (3, 4) the
@@ -17,7 +18,7 @@ describe('drag acts on the whole air-relative velocity vector (common practice, 
       launch: { kind: 'projectile', speed: 0, elevation: 0, azimuth: 0, height: 100 },
       wind: { speed: windFromWestSpeed, from: 270, shear: 0 },
     });
-    const model = new FlightModel(sc, { air: constantAir(rho) });
+    const model = new FlightModel(sc, { air: constantAir(rho), earth: uniformEarth() });
     // Configure the model for this sample by flying it once, then probe the equations of motion.
     const inputs = emptyInputs(0);
     Object.assign(inputs, { mass: m, height: 100, windSpeed: windFromWestSpeed });

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { FlightModel, emptyResult } from '../../src/flight/flight.js';
 import { emptyInputs } from '../../src/flight/inputs.js';
 import { G0 } from '../../src/physics/constants.js';
+import { uniformEarth } from '../../src/physics/earth.js';
 import type { Wind } from '../../src/scenario/types.js';
 import { body, constantAir, scenario } from '../helpers/build.js';
 
@@ -12,7 +13,8 @@ function carry(wind: Partial<Wind>) {
     launch: { kind: 'projectile', speed: 60, elevation: 45, azimuth: 0, height: 0 },
     wind: { shear: 0, ...wind },
   });
-  const model = new FlightModel(sc);
+  // Uniform gravity, no Earth rotation: the wind's effect alone (Coriolis would break the mirror symmetry).
+  const model = new FlightModel(sc, { earth: uniformEarth() });
   const inputs = emptyInputs(0);
   Object.assign(inputs, { mass: 0.5, speed: 60, elevation: 45, azimuth: 0, windSpeed: sc.weather.wind.speed });
   return { ...model.fly(inputs, () => 0, emptyResult()) };
@@ -51,7 +53,7 @@ describe('drift under a parachute ≈ wind speed × descent time (common practic
       recovery: [{ name: 'canopy', trigger: 'apogee', delay: 0, dragArea: cda }],
       wind: { speed: 6, from: 45, shear: 0 },
     });
-    const model = new FlightModel(sc, { air: constantAir(1.2) });
+    const model = new FlightModel(sc, { air: constantAir(1.2), earth: uniformEarth() });
     const inputs = emptyInputs(1);
     Object.assign(inputs, { height: 300, mass: m, windSpeed: 6 });
     const r = model.fly(inputs, () => 0, emptyResult());

@@ -26,10 +26,13 @@ describe('units on the sheet', () => {
     expect(imperial.lengthUnit.metres).toBe(0.3048);
   });
 
-  it('writes metric values in m, km, m², m/s', () => {
+  // 1 ha = 10 000 m² (SI Brochure, 9th ed., 2019, table 8): areas from one hectare up in ha.
+  it('writes metric values in m, km, m² below a hectare and ha from one up, m/s', () => {
     expect(metric.length(973.4)).toBe('973 m');
     expect(metric.length(12_345)).toBe('12.3 km');
-    expect(metric.area(1_149_242.1)).toBe('1,149,242 m²');
+    expect(metric.area(1_149_242.1)).toBe('114.92 ha');
+    expect(metric.area(9_999)).toBe('9,999 m²');
+    expect(metric.area(10_000)).toBe('1.00 ha');
     expect(metric.speed(4.9174)).toBe('4.9 m/s');
     expect(metric.speed(22)).toBe('22 m/s');
   });

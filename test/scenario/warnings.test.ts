@@ -12,7 +12,8 @@ import { fixture } from './helpers.js';
 function warningsFor(change: (s: Record<string, any>) => void) {
   const s = fixture('minimal-rocket.json');
   change(s);
-  return parseScenario(s).warnings;
+  // The point-mass warning of a rocket without a shape has its own test (shape.test.ts).
+  return parseScenario(s).warnings.filter((w) => w.path !== 'vehicle.shape');
 }
 
 const paths = (issues: Array<{ path: string }>) => issues.map((i) => i.path);

@@ -8,6 +8,7 @@ import { recallUnits } from './app/preferences.js';
 import { Store, studyIsCurrent, type AppState } from './app/store.js';
 import { createMap, webglAvailable } from './map/create-map.js';
 import { MapView } from './map/view.js';
+import { installPrintSnapshot } from './map/print.js';
 import { el } from './panels/dom.js';
 import { exportPanel } from './panels/export-panel.js';
 import { findingsPanel } from './panels/findings-panel.js';
@@ -64,6 +65,7 @@ function boot(): void {
       const { pad } = store.get().accepted.scenario.site;
       const created = createMap(mapContainer, [pad.lon, pad.lat]);
       mapView = new MapView(created.map, created.scale, (lon, lat) => controller.movePad(lon, lat));
+      installPrintSnapshot(created.map, mapContainer.parentElement ?? mapContainer);
     } catch (error) {
       mapProblem = error instanceof Error ? error.message : String(error);
     }

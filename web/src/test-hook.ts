@@ -25,6 +25,10 @@ export interface StrewnTestHook {
   wind(): { speed: number; from: number; gust: number | null };
   /** Where a place is drawn, in page pixels (null without a map). */
   screenPoint(lon: number, lat: number): { x: number; y: number } | null;
+  /** Labels of a symbol layer that maplibre actually placed, with their text and screen point. */
+  placedLabels(layer: string): { label: string; x: number; y: number }[];
+  /** Zoom the map to `zoom` around its centre (no animation). */
+  zoomTo(zoom: number): void;
 }
 
 export function installTestHook(store: Store, mapView: MapView | null): void {
@@ -54,6 +58,16 @@ export function installTestHook(store: Store, mapView: MapView | null): void {
       const w = store.get().accepted.scenario.weather.wind;
       return { speed: w.speed, from: w.from, gust: w.gust ?? null };
     },
+    placedLabels: (layer) => {
+      if (!mapView) return [];
+      const box = mapView.map.getContainer().getBoundingClientRect();
+      return mapView.map.queryRenderedFeatures({ layers: [layer] }).flatMap((f) => {
+        if (f.geometry.type !== 'Point') return [];
+        const p = mapView.map.project(f.geometry.coordinates as [number, number]);
+        return [{ label: String(f.properties?.label ?? ''), x: box.left + p.x, y: box.top + p.y }];
+      });
+    },
+    zoomTo: (zoom) => mapView?.map.jumpTo({ zoom }),
     screenPoint: (lon, lat) => {
       if (!mapView) return null;
       const p = mapView.map.project([lon, lat]);

@@ -18,6 +18,8 @@ export const SPREAD_WORDS: Record<UncertaintyName, string> = {
   'vehicle.drag': 'drag coefficient',
   'recovery.delay': 'deployment delay',
   'recovery.rate': 'descent rate (drag area)',
+  'motor.misalignment': 'thrust misalignment',
+  'vehicle.cg': 'balance point',
 };
 
 /** The plain name of a spread or of "failure mode"; names this table lacks are shown as written. */

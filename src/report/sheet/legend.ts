@@ -6,6 +6,7 @@ import type { Fill, MarkerSymbol, Shape, Stroke } from './display-list.js';
 import type { TextMeasure } from './fonts.js';
 import { CAP_HEIGHT, wrapText } from './fonts.js';
 import { INK } from './palette.js';
+import { SYMBOLS } from '../symbols.js';
 import { toWinAnsi } from './winansi.js';
 
 export type Swatch =
@@ -49,9 +50,10 @@ function swatchShapes(s: Swatch, x: number, yMid: number): Shape[] {
 
 /** The pad: a ringed dot. */
 export function padSymbol(cx: number, cy: number): Shape[] {
+  const p = SYMBOLS.pad;
   return [
-    { kind: 'circle', cx, cy, r: 4.2, fill: { color: '#ffffff' }, stroke: { color: INK, width: 1.4 } },
-    { kind: 'circle', cx, cy, r: 1.5, fill: { color: INK } },
+    { kind: 'circle', cx, cy, r: p.radius, fill: { color: '#ffffff' }, stroke: { color: p.ring, width: p.ringWidth } },
+    { kind: 'circle', cx, cy, r: p.centre, fill: { color: p.ring } },
   ];
 }
 

@@ -16,10 +16,11 @@ import { basemapShapes, lineLabelCandidates, mainRing, pointsAlong, polygonsInMe
 import { northArrow, scaleBar, windIndicator } from './map-furniture.js';
 import { boundsOfPoints, chooseExtent, fitView, intersection, isEmpty, overlaps, union, type Bounds, type MapView } from './map-view.js';
 import { lengthLabel, roundLengthAtMost } from './nice-length.js';
-import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, type SheetOptions } from './page-parts.js';
+import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, warningsBox, type SheetOptions } from './page-parts.js';
 import { AREA_STYLES, areaStyle, BASEMAP_LABEL, BASEMAP_LABEL_BACKING, BOUNDARY_STROKE, contourLabelColor, contourStyle, INK, INK_SOFT, KEEP_OUT_FILL, KEEP_OUT_STROKE, MINIMUM_DISTANCE_STROKE, modeMarker, RING_STROKE, STANDING_STROKE, STANDING_UNRESOLVED_STROKE } from './palette.js';
 import { standingRing } from '../../risk/standing.js';
 import type { SheetInput } from './sheet-input.js';
+import { WORDS } from '../symbols.js';
 import { grouped, levelText, percent, smallRate, unitFormatter, type UnitSystem } from './units.js';
 import { toWinAnsi } from './winansi.js';
 
@@ -81,7 +82,9 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   const legendColumns = 3;
   const noteSize = 8;
   const caution = cautionHeight(contentWidth, measure);
-  const frameTop = title.bottom + 6;
+  // Warnings first, where the eye lands: above the map, not only on page 2.
+  const warnings = warningsBox([...summary.warnings, ...summary.scenarioWarnings], MARGIN, title.bottom + 4, contentWidth, measure);
+  const frameTop = title.bottom + 6 + (warnings.height > 0 ? warnings.height + 4 : 0);
   const offMapAtMost = areas.filter((a) => !overlaps(a.bounds, extent));
   const noteReserve = areas.length > 0 || landings !== null ? wrapText(measure, toWinAnsi(offMapNote(offMapAtMost.map((a) => a.area.name), landings ? landings.east.length : 0, areas.length > 0, areas.length > 1)), noteSize, 'italic', contentWidth).length * noteSize * 1.25 + 2 : 0;
   /** The frame takes the height the legend and the caution leave. */
@@ -169,8 +172,8 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   if (keepOut && keepOutFeature) {
     const ring = mainRing(view, keepOut);
     const lines: LabelLine[] = [
-      { text: 'Keep-out zone', size: 8.5, font: 'bold', color: KEEP_OUT_STROKE.color },
-      { text: toWinAnsi(`${levelText(keepOutFeature.properties.level)} + ${units.length(keepOutFeature.properties.margin_m)}`), size: 8, font: 'regular', color: KEEP_OUT_STROKE.color },
+      { text: WORDS.keepOut, size: 8.5, font: 'bold', color: KEEP_OUT_STROKE.color },
+      { text: toWinAnsi(WORDS.keepOutRecipe(levelText(keepOutFeature.properties.level), units.length(keepOutFeature.properties.margin_m))), size: 8, font: 'regular', color: KEEP_OUT_STROKE.color },
     ];
     placer.place(lines, lineLabelCandidates(ring, 315), { required: true, className: 'label label-keep-out' });
   }
@@ -204,7 +207,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
     const visible = intersection(a.bounds, view.shown);
     if (isEmpty(visible)) return;
     const result = resultOf(a);
-    const odds = result ? (result.hits === 0 ? `no hits, 95 % bound ${percent(result.upper95)}` : `${percent(result.probability)} (95 % bound ${percent(result.upper95)})`) : 'not assessed';
+    const odds = result ? WORDS.areaChance(result.hits, percent(result.probability), percent(result.upper95)) : 'not assessed';
     const lines: LabelLine[] = [
       { text: toWinAnsi(a.area.name), size: 8, font: 'bold' },
       { text: toWinAnsi(odds), size: 8, font: 'regular' },
@@ -277,7 +280,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   }
 
   // ---- below the map: legend, note, caution
-  const shapes: Shape[] = [...title.shapes];
+  const shapes: Shape[] = [...title.shapes, ...warnings.shapes];
   shapes.push({ kind: 'clip', id: 'map', className: 'map', x: view.frame.x, y: view.frame.y, width: view.frame.width, height: view.frame.height, shapes: [...inside, ...placer.shapes()] });
   shapes.push(...north.shapes, ...wind.shapes, ...scale.shapes);
   shapes.push({ kind: 'rect', id: 'map-frame', x: view.frame.x, y: view.frame.y, width: view.frame.width, height: view.frame.height, stroke: { color: INK, width: 0.9 } });
@@ -310,7 +313,7 @@ function pageBounds(view: MapView, b: Bounds): Bounds {
 /** Says which areas lie beyond the frame, and how many drawn landings do. */
 function offMapNote(areaNames: string[], landingsOffMap: number, anyAreas: boolean, tags: boolean): string {
   const parts: string[] = [];
-  if (anyAreas) parts.push('Area labels: chance per flight that a landing falls inside, and its one-sided 95 % upper bound.');
+  if (anyAreas) parts.push(WORDS.areaChanceNote);
   if (tags) parts.push('Where labels would crowd, #n refers to row n of the areas table on page 2.');
   if (areaNames.length > 0) parts.push(`Beyond this map: ${areaNames.join(', ')} (figures on page 2).`);
   if (landingsOffMap > 0) parts.push(`${grouped(landingsOffMap)} of the landings drawn fall outside the frame.`);
@@ -339,34 +342,21 @@ function rangeRings(view: MapView, system: UnitSystem): { shapes: Shape[]; label
   return { shapes: [{ kind: 'group', id: 'range-rings', shapes }], labels };
 }
 
-/** What the zone is made of, in a few words: '99 % region, mode hulls, grown by 25 m'. */
-function keepOutRecipe(parts: string[], level: number, margin: number, units: ReturnType<typeof unitFormatter>): string {
-  const words: string[] = [];
-  if (parts.some((p) => p.endsWith('density region'))) words.push(`${levelText(level)} region`);
-  if (parts.some((p) => p.startsWith('convex hull'))) words.push('mode hulls');
-  if (parts.some((p) => p.startsWith('minimum distance'))) words.push('minimum distance');
-  const made = words.length > 1 ? `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}` : (words[0] ?? 'zone');
-  return margin > 0 ? `${made}, grown by ${units.length(margin)}` : made;
-}
-
 function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: string[], system: UnitSystem, hasRelease: boolean, areaKinds: Set<string>): LegendEntry[] {
   const units = unitFormatter(system);
   const entries: LegendEntry[] = [];
   const k = input.keepOut?.features[0]?.properties;
-  if (k) entries.push({ swatch: { kind: 'area', fill: KEEP_OUT_FILL, stroke: { ...KEEP_OUT_STROKE, width: 2.6 } }, text: `Keep-out zone: ${keepOutRecipe(k.parts, k.level, k.margin_m, units)}` });
-  levels.forEach((level, i) => entries.push({ swatch: { kind: 'line', stroke: contourStyle(i) }, text: `${levelText(level)} of landings fall inside` }));
+  if (k) entries.push({ swatch: { kind: 'area', fill: KEEP_OUT_FILL, stroke: { ...KEEP_OUT_STROKE, width: 2.6 } }, text: `${WORDS.keepOut}: ${WORDS.keepOutMadeOf(k.parts, levelText(k.level), k.margin_m > 0 ? units.length(k.margin_m) : null)}` });
+  levels.forEach((level, i) => entries.push({ swatch: { kind: 'line', stroke: contourStyle(i) }, text: WORDS.contour(levelText(level)) }));
   const risk = input.summary.risk;
   if (risk && Object.values(risk.standingDistance_m).some((d) => d > 0)) {
-    entries.push({
-      swatch: { kind: 'line', stroke: risk.standingResolved ? STANDING_STROKE : STANDING_UNRESOLVED_STROKE },
-      text: `Individual risk under ${smallRate(risk.standingLevel)} per flight beyond this line (by octant)${risk.standingResolved ? '' : '; not resolved by the samples'}`,
-    });
+    entries.push({ swatch: { kind: 'line', stroke: risk.standingResolved ? STANDING_STROKE : STANDING_UNRESOLVED_STROKE }, text: WORDS.standing(smallRate(risk.standingLevel), risk.standingResolved) });
   }
   if (input.scenario.site.minimumDistance) entries.push({ swatch: { kind: 'line', stroke: MINIMUM_DISTANCE_STROKE }, text: `Minimum distance ${units.length(input.scenario.site.minimumDistance)} (site setting)` });
-  entries.push({ swatch: { kind: 'pad' }, text: 'Pad' });
+  entries.push({ swatch: { kind: 'pad' }, text: WORDS.pad });
   if (hasRelease) entries.push({ swatch: { kind: 'release' }, text: 'Release point' });
-  entries.push({ swatch: { kind: 'line', stroke: RING_STROKE }, text: 'Range rings, distance from the pad' });
-  if (input.scenario.site.boundary) entries.push({ swatch: { kind: 'line', stroke: BOUNDARY_STROKE }, text: 'Site boundary' });
+  entries.push({ swatch: { kind: 'line', stroke: RING_STROKE }, text: WORDS.rings });
+  if (input.scenario.site.boundary) entries.push({ swatch: { kind: 'line', stroke: BOUNDARY_STROKE }, text: WORDS.boundary });
   for (const kind of Object.keys(AREA_STYLES)) {
     if (!areaKinds.has(kind)) continue;
     const st = areaStyle(kind);
@@ -380,7 +370,7 @@ function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: s
       const landed = mode.landed ?? drawn;
       if (landed === 0) return;
       const count = drawn < landed ? `${grouped(drawn)} of ${grouped(landed)} drawn` : grouped(landed);
-      entries.push({ swatch: { kind: 'marker', symbol: marker.symbol, color: marker.color, size: marker.size, opacity: Math.min(1, marker.opacity + 0.2) }, text: `Landings, ${mode.name} (${count})` });
+      entries.push({ swatch: { kind: 'marker', symbol: marker.symbol, color: marker.color, size: marker.size, opacity: Math.min(1, marker.opacity + 0.2) }, text: `${WORDS.landings(mode.name)} (${count})` });
     });
   }
   const seen = new Set<string>();

@@ -91,3 +91,39 @@ export function cautionBox(x: number, y: number, width: number, measure: TextMea
   });
   return { shapes: [{ kind: 'group', id: 'caution', className: 'caution', shapes }], height };
 }
+
+/** Lines of the first page's warnings box, and how many warnings it had to leave to page 2. */
+function warningLines(warnings: readonly string[], width: number, measure: TextMeasure, size: number, maxLines: number): string[] {
+  const out: string[] = [];
+  let shown = 0;
+  for (const w of warnings) {
+    const lines = wrapText(measure, toWinAnsi(`\u2022 ${w}`), size, 'regular', width - 14);
+    // Keep one line for "n more" when warnings remain.
+    const room = maxLines - out.length - (shown + 1 < warnings.length ? 1 : 0);
+    if (lines.length > room) break;
+    out.push(...lines);
+    shown++;
+  }
+  if (shown < warnings.length) out.push(`${shown === 0 ? '' : 'and '}${warnings.length - shown} more on page 2`);
+  return out;
+}
+
+/**
+ * The run's warnings, first thing under the title on page 1: a map read without them can mislead.
+ * At most `maxLines` lines of text; the rest is named as "n more on page 2" (the record lists them).
+ * Nothing (height 0) when there are no warnings.
+ */
+export function warningsBox(warnings: readonly string[], x: number, y: number, width: number, measure: TextMeasure, maxLines = 5, size = 8): { shapes: Shape[]; height: number } {
+  if (warnings.length === 0) return { shapes: [], height: 0 };
+  const heading = `Warnings (${warnings.length}): read them before using this map`;
+  const lines = warningLines(warnings, width, measure, size, maxLines);
+  const height = 6 + size * 1.25 * (lines.length + 1) + 3;
+  const shapes: Shape[] = [{ kind: 'rect', x, y, width, height, fill: { color: '#fff6e0' }, stroke: { color: INK, width: 1.4 } }];
+  let baseline = y + 4 + size * CAP_HEIGHT + 1;
+  shapes.push({ kind: 'text', x: x + 7, y: baseline, text: heading, size, font: 'bold', anchor: 'start', color: INK });
+  for (const line of lines) {
+    baseline += size * 1.25;
+    shapes.push({ kind: 'text', x: x + 7, y: baseline, text: line, size, font: 'regular', anchor: 'start', color: INK });
+  }
+  return { shapes: [{ kind: 'group', id: 'warnings', className: 'warnings', shapes }], height };
+}

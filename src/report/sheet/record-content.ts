@@ -119,7 +119,10 @@ function spreadValue(name: UncertaintyName, x: number, u: UnitFormatter): string
     case 'launch.tilt':
     case 'launch.azimuth':
     case 'launch.elevation':
+    case 'motor.misalignment':
       return `${significant(x, 3)}\u00b0`;
+    case 'vehicle.cg':
+      return u.shortLength(x);
     case 'launch.height':
       return u.shortLength(x);
     case 'motor.impulse':

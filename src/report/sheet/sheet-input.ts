@@ -83,10 +83,11 @@ export function thinLandings(east: ArrayLike<number>, north: ArrayLike<number>, 
 /** The landing points of a run's landing set, as landings.geojson would give them back. */
 export function landingPointsFromSet(set: LandingSet, modeNames: string[]): LandingPoints {
   const toSummaryIndex = set.modeNames.map((name) => modeNames.indexOf(name));
-  const mode = Array.from(set.mode, (m) => toSummaryIndex[m] ?? -1);
-  const east = Array.from(set.east, roundCentimetre);
-  const north = Array.from(set.north, roundCentimetre);
-  return thinLandings(east, north, mode, modeNames.length);
+  const mode = Int16Array.from(set.mode, (m) => toSummaryIndex[m] ?? -1);
+  // Thinned first, rounded after: the same points as rounding all first, without a copy of
+  // every landing as plain arrays.
+  const points = thinLandings(set.east, set.north, mode, modeNames.length);
+  return { ...points, east: points.east.map(roundCentimetre), north: points.north.map(roundCentimetre) };
 }
 
 /** The texts of a results folder the sheet reads (contours and keep-out are absent without an analysis). */

@@ -7,6 +7,7 @@
  *   const u = unitFormatter('imperial');
  *   u.length(1609.344)   // '1.00 mi'
  *   u.area(4046.8564224) // '1.00 acres'
+ *   unitFormatter('metric').area(25_000) // '2.50 ha'
  */
 
 export type UnitSystem = 'metric' | 'imperial';
@@ -39,6 +40,20 @@ function sig(x: number, digits = 3): string {
 }
 
 const NA = 'n/a';
+
+export const HECTARE_M2 = 10_000;
+
+/**
+ * THE rule for areas everywhere (sheet, page, terminal): below one hectare (acre) in m² (ft²),
+ * from one hectare (acre) up in hectares (acres) with two decimals. Land is measured in hectares
+ * and acres; small zones read better in square metres or feet.
+ * 1 ha = 10,000 m² (SI Brochure, 9th ed., table 8); 1 acre = 43,560 ft² (NIST Handbook 44, app. C).
+ */
+export function areaText(m2: number | null | undefined, system: UnitSystem): string {
+  if (!ok(m2)) return NA;
+  if (system === 'metric') return m2 < HECTARE_M2 ? `${grouped(m2)} m\u00b2` : `${grouped(m2 / HECTARE_M2, 2)} ha`;
+  return m2 < ACRE_M2 ? `${grouped(m2 / (FOOT_M * FOOT_M))} ft\u00b2` : `${grouped(m2 / ACRE_M2, 2)} acres`;
+}
 const ok = (x: number | null | undefined): x is number => typeof x === 'number' && Number.isFinite(x);
 
 export interface UnitFormatter {
@@ -74,9 +89,7 @@ export function unitFormatter(system: UnitSystem): UnitFormatter {
     diameter: (m) => (!ok(m) ? NA : metric ? `${sig(m * 1000)} mm` : `${sig(m / INCH_M)} in`),
     area: (m2) => {
       if (!ok(m2)) return NA;
-      if (metric) return `${grouped(m2)} m\u00b2`;
-      const ft2 = m2 / (FOOT_M * FOOT_M);
-      return m2 < ACRE_M2 ? `${grouped(ft2)} ft\u00b2` : `${grouped(m2 / ACRE_M2, 2)} acres`;
+      return areaText(m2, system);
     },
     smallArea: (m2) => (!ok(m2) ? NA : metric ? `${sig(m2 * 1e4)} cm\u00b2` : `${sig(m2 / (INCH_M * INCH_M))} in\u00b2`),
     speed: (v) => (!ok(v) ? NA : metric ? `${sig(v, 2 + (Math.abs(v) >= 10 ? 1 : 0))} m/s` : `${sig(v / MPH_M_S, 2 + (Math.abs(v / MPH_M_S) >= 10 ? 1 : 0))} mph`),

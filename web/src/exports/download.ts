@@ -6,6 +6,7 @@ const TYPES: Record<string, string> = {
   csv: 'text/csv',
   json: 'application/json',
   geojson: 'application/geo+json',
+  fgb: 'application/flatgeobuf',
   kml: 'application/vnd.google-earth.kml+xml',
   pdf: 'application/pdf',
   svg: 'image/svg+xml',
@@ -19,7 +20,7 @@ export function mimeType(name: string): string {
 export function blobParts(content: FileContent): BlobPart[] {
   if (typeof content === 'string') return [content];
   if (content instanceof Uint8Array) return [content as Uint8Array<ArrayBuffer>];
-  return Array.from(content);
+  return Array.from(content, (piece) => (typeof piece === 'string' ? piece : (piece as Uint8Array<ArrayBuffer>)));
 }
 
 export function download(name: string, content: FileContent | Blob): void {

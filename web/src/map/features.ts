@@ -6,9 +6,9 @@ import type { Site, VehicleKind } from '../../../src/scenario/types.js';
 import type { NominalFlight } from '../study/nominal.js';
 import { inUnit, level } from '../units/format.js';
 import type { Unit } from '../units/systems.js';
-import { areaClassIndex } from './palette.js';
 import { riskFeatures } from '../../../src/risk/geojson.js';
 import { smallRate } from '../../../src/report/sheet/units.js';
+import { WORDS, modeSymbolIndex } from '../../../src/report/symbols.js';
 
 /**
  * Map features built from the scenario and the results. Labels sit on point features of their
@@ -67,19 +67,19 @@ export function boundaryFeatures(site: Site): FeatureCollection {
 export interface AreaFigure {
   hits: number;
   probability: number;
+  upper95: number;
 }
 
 /**
- * The marked areas, each with its probability class for the fill, and a label with the name and,
- * after a run, the probability. Names are the user's text; maplibre draws them as glyphs.
+ * The marked areas, each with its kind (the fill, as on the sheet), and a label with the name and,
+ * after a run, the chance in the sheet's words. Names are the user's text; maplibre draws them as glyphs.
  */
 export function areaFeatures(site: Site, figures: readonly (AreaFigure | undefined)[], describe: (f: AreaFigure) => string): { shapes: FeatureCollection; labels: FeatureCollection } {
   const shapes: Feature<Polygon, Props>[] = [];
   const labels: Feature<Point, Props>[] = [];
   site.areas.forEach((area, i) => {
     const figure = figures[i];
-    const cls = figure === undefined ? -1 : areaClassIndex(figure.probability, figure.hits);
-    shapes.push({ type: 'Feature', geometry: area.geometry as Polygon, properties: { index: i, kind: area.kind, class: cls } });
+    shapes.push({ type: 'Feature', geometry: area.geometry as Polygon, properties: { index: i, kind: area.kind, hits: figure?.hits ?? null } });
     const text = figure === undefined ? area.name : `${area.name}\n${describe(figure)}`;
     labels.push(point(ringCentre(area.geometry.coordinates[0]!), { label: text }));
   });
@@ -146,7 +146,7 @@ export function keepOutFeatures(analysis: AnalysisResult, unit: Unit): { shapes:
   const zone = analysis.keepOut;
   const bottom = extremeVertex(zone.geometry, (a, b) => a[1]! < b[1]!);
   const p = zone.properties;
-  const text = `Keep-out zone (${level(p.level)} + ${inUnit(p.margin_m, unit)})`;
+  const text = `${WORDS.keepOut}\n${WORDS.keepOutRecipe(level(p.level), inUnit(p.margin_m, unit))}`;
   return {
     shapes: collection([{ type: 'Feature', geometry: zone.geometry, properties: { level: p.level, area_m2: p.area_m2, maxDistance_m: p.maxDistance_m } }]),
     labels: bottom ? collection([point(bottom, { label: text })]) : EMPTY_COLLECTION,
@@ -187,7 +187,7 @@ export function rateText(x: number): string {
 export function landingFeatures(set: LandingSet, frame: LocalFrame): FeatureCollection {
   const features: Feature<Point, Props>[] = new Array(set.east.length);
   for (let i = 0; i < set.east.length; i++) {
-    features[i] = point(frame.toLonLat(set.east[i]!, set.north[i]!), { i, mode: set.mode[i]! });
+    features[i] = point(frame.toLonLat(set.east[i]!, set.north[i]!), { i, mode: set.mode[i]!, symbol: modeSymbolIndex(set.mode[i]!) });
   }
   return collection(features);
 }

@@ -1,7 +1,9 @@
 import type { ExpressionSpecification, LayerSpecification, StyleSpecification, SymbolLayerSpecification } from 'maplibre-gl';
 import fontLatin from '@fontsource/noto-sans/files/noto-sans-latin-400-normal.woff2?url';
 import fontLatinExt from '@fontsource/noto-sans/files/noto-sans-latin-ext-400-normal.woff2?url';
-import { AREA_CLASSES, AREA_NO_HITS, AREA_OUTLINE, BASEMAP, BOUNDARY, CONTOUR_FILL, CONTOUR_FILL_OPACITY, KEEP_OUT, MODE_STYLE_COUNT, RINGS, STANDING, TRACK, contourStyle, modeStyle, riskStyle } from './palette.js';
+import { AREA_KINDS, BASEMAP, BOUNDARY, CONTOUR_LEVEL_STYLES, KEEP_OUT, KEEP_OUT_FILL, MODE_STYLE_COUNT, RINGS, SYMBOLS, STANDING, TRACK, areaStyle, contourStyle, modeStyle, riskStyle } from './palette.js';
+import { markerImageId } from './markers.js';
+import { contourLabelSymbolColor } from '../../../src/report/symbols.js';
 
 /**
  * The map's own style: no tile server, no glyph server, no sprite. Text is drawn from a bundled
@@ -35,7 +37,7 @@ export type SourceId = (typeof SOURCES)[keyof typeof SOURCES];
 /** Layers the settings panel can switch, by group. */
 export const LAYER_GROUPS = {
   landings: ['landings'],
-  contours: ['contour-fill', 'contour-line', 'contour-label'],
+  contours: ['contour-line', 'contour-label'],
   keepOut: ['keepout-fill', 'keepout-line', 'keepout-label'],
   areas: ['area-fill', 'area-line', 'area-label'],
   track: ['track-casing', 'track-line', 'track-label'],
@@ -51,7 +53,6 @@ export const BASEMAP_FILL_LAYERS = ['basemap-field', 'basemap-woodland'] as cons
 /** Where optional tile layers go: above the background, below everything of the scenario. */
 export const FIRST_SCENARIO_LAYER = 'basemap-field';
 
-export const KEEP_OUT_HATCH = 'keepout-hatch';
 
 const EMPTY = { type: 'FeatureCollection', features: [] } as const;
 
@@ -76,32 +77,35 @@ const halo = { 'text-color': BASEMAP.label, 'text-halo-color': BASEMAP.halo, 'te
 function byMode<T>(pick: (mode: number) => T, fallback: T): ExpressionSpecification {
   const cases: unknown[] = [];
   for (let m = 0; m < MODE_STYLE_COUNT; m++) cases.push(m, pick(m));
-  return ['match', ['%', ['get', 'mode'], MODE_STYLE_COUNT], ...cases, fallback] as unknown as ExpressionSpecification;
+  // `symbol` is the row of the shared marker table the feature's mode uses (features.ts).
+  return ['match', ['get', 'symbol'], ...cases, fallback] as unknown as ExpressionSpecification;
 }
 
 function byLevelIndex<T>(pick: (index: number) => T): ExpressionSpecification {
   const cases: unknown[] = [];
-  for (let i = 0; i < 4; i++) cases.push(i, pick(i));
-  return ['match', ['get', 'index'], ...cases, pick(3)] as unknown as ExpressionSpecification;
+  for (let i = 0; i < CONTOUR_LEVEL_STYLES; i++) cases.push(i, pick(i));
+  return ['match', ['get', 'index'], ...cases, pick(CONTOUR_LEVEL_STYLES - 1)] as unknown as ExpressionSpecification;
 }
 
-function areaFill(): ExpressionSpecification {
-  const cases: unknown[] = [-1, AREA_NO_HITS];
-  AREA_CLASSES.forEach((c, i) => cases.push(i, c.fill));
-  return ['match', ['get', 'class'], ...cases, AREA_NO_HITS] as unknown as ExpressionSpecification;
+/** A paint value by the area's kind, from the shared symbol set (unknown kinds as 'other'). */
+function byAreaKind<T>(pick: (kind: string) => T): ExpressionSpecification {
+  const cases: unknown[] = [];
+  for (const kind of AREA_KINDS) cases.push(kind, pick(kind));
+  return ['match', ['get', 'kind'], ...cases, pick('other')] as unknown as ExpressionSpecification;
 }
 
 function contourLines(): LayerSpecification[] {
   // maplibre cannot take a dash array from an expression per feature, so each level's style
   // is its own layer, filtered by the level's index.
-  return [0, 1, 2, 3].map((i) => {
+  return Array.from({ length: CONTOUR_LEVEL_STYLES }, (_, i) => {
     const style = contourStyle(i);
     return {
       id: i === 0 ? 'contour-line' : `contour-line-${i}`,
       type: 'line',
       source: SOURCES.contours,
-      filter: ['==', ['get', 'index'], i],
-      layout: { 'line-join': 'round' },
+      // The last style serves every level past it, as on the sheet.
+      filter: i === CONTOUR_LEVEL_STYLES - 1 ? ['>=', ['get', 'index'], i] : ['==', ['get', 'index'], i],
+      layout: { 'line-join': 'round', 'line-cap': style.cap },
       paint: { 'line-color': style.color, 'line-width': style.width, ...(style.dash.length ? { 'line-dasharray': style.dash } : {}) },
     } as LayerSpecification;
   });
@@ -133,43 +137,40 @@ export function offlineStyle(): StyleSpecification {
     { id: 'basemap-hedge', type: 'line', source: SOURCES.basemap, filter: ['==', ['get', 'kind'], 'hedge'], layout: { 'line-cap': 'round' }, paint: { 'line-color': BASEMAP.hedge, 'line-width': 2.6, 'line-dasharray': [0.6, 1.2] } },
     { id: 'basemap-other-line', type: 'line', source: SOURCES.basemap, filter: ['all', ['==', ['geometry-type'], 'LineString'], ['!', ['in', ['get', 'kind'], ['literal', ['stream', 'track', 'hedge']]]]], paint: { 'line-color': '#777777', 'line-width': 1.2 } },
     { id: 'boundary-line', type: 'line', source: SOURCES.boundary, paint: { 'line-color': BOUNDARY.color, 'line-width': BOUNDARY.width, 'line-dasharray': BOUNDARY.dash } },
-    { id: 'area-fill', type: 'fill', source: SOURCES.areas, paint: { 'fill-color': areaFill(), 'fill-opacity': ['case', ['==', ['get', 'class'], -1], 0.35, 0.85] } },
-    { id: 'area-line', type: 'line', source: SOURCES.areas, paint: { 'line-color': AREA_OUTLINE, 'line-width': 1.4 } },
+    { id: 'area-fill', type: 'fill', source: SOURCES.areas, paint: { 'fill-color': byAreaKind((k) => areaStyle(k).fill), 'fill-opacity': byAreaKind((k) => areaStyle(k).opacity) } },
+    { id: 'area-line', type: 'line', source: SOURCES.areas, paint: { 'line-color': byAreaKind((k) => areaStyle(k).line.color), 'line-width': byAreaKind((k) => areaStyle(k).line.width) } },
     { id: 'ring-line', type: 'line', source: SOURCES.rings, paint: { 'line-color': RINGS.color, 'line-width': RINGS.width, 'line-dasharray': RINGS.dash } },
-    { id: 'contour-fill', type: 'fill', source: SOURCES.contours, paint: { 'fill-color': CONTOUR_FILL, 'fill-opacity': CONTOUR_FILL_OPACITY } },
     ...contourLines(),
-    { id: 'keepout-fill', type: 'fill', source: SOURCES.keepOut, paint: { 'fill-pattern': KEEP_OUT_HATCH, 'fill-opacity': 0.55 } },
-    { id: 'keepout-line', type: 'line', source: SOURCES.keepOut, layout: { 'line-join': 'round' }, paint: { 'line-color': KEEP_OUT.color, 'line-width': KEEP_OUT.width, 'line-dasharray': KEEP_OUT.dash } },
+    { id: 'keepout-fill', type: 'fill', source: SOURCES.keepOut, paint: { 'fill-color': KEEP_OUT_FILL.color, 'fill-opacity': KEEP_OUT_FILL.opacity ?? 1 } },
+    { id: 'keepout-line', type: 'line', source: SOURCES.keepOut, layout: { 'line-join': 'round' }, paint: { 'line-color': KEEP_OUT.color, 'line-width': KEEP_OUT.width, ...(KEEP_OUT.dash.length ? { 'line-dasharray': KEEP_OUT.dash } : {}) } },
     ...riskLines(),
     { id: 'risk-standing', type: 'line', source: SOURCES.risk, filter: ['==', ['get', 'kind'], 'standing-distance'], layout: { 'line-join': 'round' }, paint: { 'line-color': STANDING.color, 'line-width': STANDING.width, 'line-dasharray': STANDING.dash, 'line-opacity': ['case', ['get', 'resolved'], 1, 0.45] } },
     { id: 'track-casing', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': '#FFFFFF', 'line-width': TRACK.width + 2.4 } },
     { id: 'track-line', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': TRACK.color, 'line-width': TRACK.width } },
     {
+      // The sheet's marker shapes as images (markers.ts); every landing drawn, none hidden by placement.
       id: 'landings',
-      type: 'circle',
+      type: 'symbol',
       source: SOURCES.landings,
-      paint: {
-        'circle-color': byMode((m) => modeStyle(m).color, '#000000'),
-        'circle-radius': byMode((m) => modeStyle(m).radius, 3),
-        'circle-stroke-color': byMode((m) => modeStyle(m).stroke, '#000000'),
-        'circle-stroke-width': byMode((m) => modeStyle(m).strokeWidth, 1),
-        'circle-opacity': 0.85,
-      },
+      layout: { 'icon-image': byMode((m) => markerImageId(m), markerImageId(1)), 'icon-allow-overlap': true, 'icon-ignore-placement': true, 'icon-size': 1, 'symbol-sort-key': ['get', 'mode'] },
+      paint: { 'icon-opacity': byMode((m) => modeStyle(m).opacity, 0.9) },
     },
     { id: 'basemap-label', type: 'symbol', source: SOURCES.basemapLabels, layout: label(11, { 'text-letter-spacing': 0.04 }), paint: { ...halo, 'text-color': '#5B6B45' } },
     { id: 'ring-label', type: 'symbol', source: SOURCES.ringLabels, layout: label(11, { 'text-offset': [0, -0.6] }), paint: { ...halo, 'text-color': RINGS.color } },
-    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false }), paint: { ...halo, 'text-color': '#1A1A1A' } },
+    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false, 'text-max-width': 22 }), paint: { ...halo, 'text-color': '#1A1A1A' } },
     { id: 'track-label', type: 'symbol', source: SOURCES.trackLabels, layout: label(11, { 'text-anchor': 'bottom', 'text-offset': [0, -0.5] }), paint: { ...halo, 'text-color': TRACK.color } },
     { id: 'track-apogee', type: 'circle', source: SOURCES.trackLabels, paint: { 'circle-color': '#FFFFFF', 'circle-radius': 4, 'circle-stroke-color': TRACK.color, 'circle-stroke-width': 2 } },
     {
       id: 'contour-label',
       type: 'symbol',
       source: SOURCES.contourLabels,
-      layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': true }),
-      paint: { 'text-color': byLevelIndex((i) => contourStyle(i).color), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
+      // Thinned on a small cloud: labels that would collide are left out (the legend names every
+      // line style), the outermost region's first, as it bounds the zone.
+      layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': false, 'text-padding': 4, 'symbol-sort-key': ['-', 100, ['get', 'index']] }),
+      paint: { 'text-color': byLevelIndex((i) => contourLabelSymbolColor(i)), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
     },
     { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-anchor': 'left', 'text-offset': [0.4, 0] }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
-    { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': '#8A3C00', 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
+    { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ];
   return {
     version: 8,
@@ -188,7 +189,7 @@ export function offlineStyle(): StyleSpecification {
 /** Every layer id of a group, including the per-level contour line layers. */
 export function layersOf(group: LayerGroup): string[] {
   const ids: string[] = [...LAYER_GROUPS[group]];
-  if (group === 'contours') ids.push('contour-line-1', 'contour-line-2', 'contour-line-3');
+  if (group === 'contours') for (let i = 1; i < CONTOUR_LEVEL_STYLES; i++) ids.push(`contour-line-${i}`);
   if (group === 'track') ids.push('track-apogee');
   if (group === 'risk') ids.push('risk-line-1', 'risk-line-2');
   return ids;

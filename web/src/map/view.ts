@@ -3,14 +3,16 @@ import type { FeatureCollection } from 'geojson';
 import { createLocalFrame } from '../../../src/analysis/geodesy.js';
 import type { AcceptedScenario } from '../scenario/validate.js';
 import type { Study } from '../study/compose.js';
-import { percent } from '../units/format.js';
+import { percent as sheetPercent } from '../../../src/report/sheet/units.js';
+import { WORDS } from '../../../src/report/symbols.js';
+import { inUnit } from '../units/format.js';
 import { figureUnits, type UnitSystem } from '../units/systems.js';
 import { attachLandingHover } from './hover.js';
-import { hatchImage } from './hatch.js';
+import { MARKER_PIXEL_RATIO, markerImage, markerImageId } from './markers.js';
 import { LegendControl } from './legend.js';
 import { PadMarker } from './pad-marker.js';
-import { KEEP_OUT } from './palette.js';
-import { KEEP_OUT_HATCH, SOURCES, layersOf, type LayerGroup, type SourceId } from './style.js';
+import { KEEP_OUT_FILL, MODE_STYLE_COUNT } from './palette.js';
+import { SOURCES, layersOf, type LayerGroup, type SourceId } from './style.js';
 import { USER_BASEMAP_SOURCE, applyBackground, type Background } from './tiles.js';
 import { WindArrowControl } from './wind-arrow.js';
 import {
@@ -27,6 +29,24 @@ import {
   ringRadii,
   trackFeatures,
 } from './features.js';
+
+type Corner = 'top-left' | 'top-right' | 'bottom-left' | 'bottom-right';
+const CORNERS: readonly Corner[] = ['bottom-right', 'bottom-left', 'top-right', 'top-left'];
+/** A map narrower than this starts with the legend folded away: open, it would cover half of it. */
+const NARROW_MAP_PX = 640;
+
+interface Rect {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+function overlap(a: Rect, b: Rect): number {
+  const w = Math.min(a.x + a.w, b.x + b.w) - Math.max(a.x, b.x);
+  const h = Math.min(a.y + a.h, b.y + b.h) - Math.max(a.y, b.y);
+  return w > 0 && h > 0 ? w * h : 0;
+}
 
 /** What the map shows: the accepted scenario, and the study when there is one. */
 export interface MapScene {
@@ -48,6 +68,8 @@ export class MapView {
   private readonly pad: PadMarker;
   private scene: MapScene | null = null;
   private basemapFailed = false;
+  private faded = false;
+  private landingOpacity: unknown = null;
   /** Told when the optional basemap fails to load. */
   onBasemapError: (message: string) => void = () => {};
   private readonly styleReady: Promise<void>;
@@ -59,6 +81,11 @@ export class MapView {
   ) {
     map.addControl(this.wind, 'top-right');
     map.addControl(this.legend, 'bottom-right');
+    // Opened or folded by the reader: its size changed, so it may fit better in another corner.
+    this.legend.element.addEventListener('toggle', () => this.placeLegend());
+    // The reader's own opening or folding (a click or a key on the summary) decides from then on.
+    this.legend.element.querySelector('summary')?.addEventListener('click', () => (this.legendFoldDecided = true));
+    map.on('resize', () => this.placeLegend());
     this.pad = new PadMarker(map, { onDrag: (lon, lat) => this.drawRings(lon, lat), onMoved: onPadMoved });
     // Ring spacing follows the zoom, so a few rings are always in view.
     map.on('moveend', () => {
@@ -69,7 +96,7 @@ export class MapView {
       if (map.isStyleLoaded()) resolve();
       else map.once('load', () => resolve());
     }).then(() => {
-      map.addImage(KEEP_OUT_HATCH, hatchImage(KEEP_OUT.hatch));
+      for (let m = 0; m < MODE_STYLE_COUNT; m++) map.addImage(markerImageId(m), markerImage(m), { pixelRatio: MARKER_PIXEL_RATIO });
     });
     // A basemap the user asked for may fail to load (no network, a wrong URL, a damaged file):
     // that is said once in the Map tab, not left as a stream of console errors.
@@ -105,6 +132,7 @@ export class MapView {
 
   async show(scene: MapScene, options: { fit: 'site' | 'results' | 'none' }): Promise<void> {
     await this.styleReady;
+    this.decideLegendFold();
     const previous = this.scene;
     this.scene = scene;
     const { scenario, nominal } = scene.accepted;
@@ -125,8 +153,9 @@ export class MapView {
     }
 
     const study = scene.study;
-    const figures = scene.current && study?.analysis ? study.analysis.areas.map((a) => ({ hits: a.hits, probability: a.probability })) : [];
-    const areas = areaFeatures(site, figures, (f) => (f.hits === 0 ? 'no landing' : percent(f.probability)));
+    const figures = scene.current && study?.analysis ? study.analysis.areas.map((a) => ({ hits: a.hits, probability: a.probability, upper95: a.upper95 })) : [];
+    // The sheet's words and number formatting, so a label reads the same on paper and on screen.
+    const areas = areaFeatures(site, figures, (f) => WORDS.areaChance(f.hits, sheetPercent(f.probability), sheetPercent(f.upper95)));
     this.setData(SOURCES.areas, areas.shapes);
     this.setData(SOURCES.areaLabels, areas.labels);
 
@@ -149,23 +178,99 @@ export class MapView {
     }
     // Results from an earlier version of the scenario stay visible, but faded.
     const faded = study !== null && !scene.current;
-    this.map.setPaintProperty('landings', 'circle-opacity', faded ? 0.3 : 0.85);
-    this.map.setPaintProperty('contour-fill', 'fill-opacity', faded ? 0.04 : 0.1);
-    this.map.setPaintProperty('keepout-fill', 'fill-opacity', faded ? 0.2 : 0.55);
+    if (faded !== this.faded) {
+      this.faded = faded;
+      if (faded) this.landingOpacity = this.map.getPaintProperty('landings', 'icon-opacity');
+      this.map.setPaintProperty('landings', 'icon-opacity', faded ? 0.3 : (this.landingOpacity as number));
+      this.map.setPaintProperty('keepout-fill', 'fill-opacity', (KEEP_OUT_FILL.opacity ?? 1) * (faded ? 0.4 : 1));
+    }
 
     this.drawRings(site.pad.lon, site.pad.lat);
+    const k = study?.analysis?.keepOut.properties;
     this.legend.show({
       modes: study?.set.modeNames ?? [],
       levels: study?.analysis?.levels ?? [],
-      keepOut: study?.analysis ? { level: study.analysis.keepOut.properties.level } : null,
-      hasAreas: site.areas.length > 0,
-      areaFigures: figures.length > 0,
+      keepOut: k ? { level: k.level, parts: k.parts, margin: k.margin_m > 0 ? inUnit(k.margin_m, units.length) : null } : null,
+      areaKinds: [...new Set(site.areas.map((a) => a.kind as string))],
       hasTrack: nominal.track.length > 1,
-      risk: study?.analysis?.risk ? { levels: study.analysis.risk.lines.map((l) => ({ level: l.level, resolved: l.resolved })), standingLevel: study.analysis.risk.standingLevel } : null,
+      hasBoundary: site.boundary !== undefined,
+      risk: study?.analysis?.risk ? { levels: study.analysis.risk.lines.map((l) => ({ level: l.level, resolved: l.resolved })), standingLevel: study.analysis.risk.standingLevel, standingResolved: study.analysis.risk.standingLine.resolved } : null,
     });
 
     if (options.fit === 'site') this.fitSite();
     else if (options.fit === 'results') this.fitResults();
+    this.placeLegend();
+  }
+
+  /** Where the legend sits now. */
+  legendCorner: Corner = 'bottom-right';
+
+  /**
+   * Puts the legend in the map corner where it covers least of what was found: the keep-out zone,
+   * its label, the marked areas' labels and the pad. On a narrow map it starts folded away
+   * (the reader opens it); once the reader opens or folds it, the page leaves that choice alone.
+   */
+  placeLegend(): void {
+    const box = this.legend.element;
+    const container = this.map.getContainer();
+    const width = container.clientWidth;
+    const height = container.clientHeight;
+    this.decideLegendFold();
+    const keep: Rect[] = [];
+    const rectAround = (lon: number, lat: number, w: number, h: number): Rect => {
+      const p = this.map.project([lon, lat]);
+      return { x: p.x - w / 2, y: p.y - h / 2, w, h };
+    };
+    const zone = boundsOf(this.sourceData(SOURCES.keepOut));
+    if (zone) {
+      const a = this.map.project([zone[0], zone[3]]);
+      const b = this.map.project([zone[2], zone[1]]);
+      keep.push({ x: a.x, y: a.y, w: b.x - a.x, h: b.y - a.y });
+    }
+    // Labels count more than area: a hidden label hides a figure.
+    for (const f of this.sourceData(SOURCES.keepOutLabel).features) if (f.geometry.type === 'Point') keep.push(rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 160, 60), rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 160, 60));
+    for (const f of this.sourceData(SOURCES.areaLabels).features) if (f.geometry.type === 'Point') keep.push(rectAround(f.geometry.coordinates[0]!, f.geometry.coordinates[1]!, 140, 40));
+    const pad = this.scene?.accepted.scenario.site.pad;
+    if (pad) keep.push(rectAround(pad.lon, pad.lat, 40, 40));
+    const w = box.offsetWidth;
+    const h = box.offsetHeight;
+    const costOf = (corner: Corner): number => {
+      const holder = container.querySelector<HTMLElement>(`.maplibregl-ctrl-${corner}`);
+      const others = holder ? [...holder.children].filter((c) => c !== box).reduce((sum, c) => sum + (c as HTMLElement).offsetHeight + 10, 0) : 0;
+      const x = corner.endsWith('left') ? 10 : width - w - 10;
+      const y = corner.startsWith('top') ? others + 10 : height - others - h - 10;
+      const r = { x, y, w, h };
+      return keep.reduce((sum, k) => sum + overlap(r, k), 0);
+    };
+    let best = this.legendCorner;
+    let bestCost = costOf(best);
+    for (const corner of CORNERS) {
+      const cost = costOf(corner);
+      if (cost < bestCost - 1) {
+        best = corner;
+        bestCost = cost;
+      }
+    }
+    if (best !== this.legendCorner) {
+      this.legendCorner = best;
+      const holder = container.querySelector<HTMLElement>(`.maplibregl-ctrl-${best}`);
+      if (holder) {
+        if (best.startsWith('bottom')) holder.prepend(box);
+        else holder.append(box);
+      }
+    }
+    box.dataset.corner = best;
+  }
+  private legendFoldDecided = false;
+
+  /**
+   * On a narrow map the legend is folded away, on a wide one open, until the reader opens or folds
+   * it: from then on that choice stands.
+   */
+  private decideLegendFold(): void {
+    if (this.legendFoldDecided) return;
+    const open = this.map.getContainer().clientWidth >= NARROW_MAP_PX;
+    if (this.legend.element.open !== open) this.legend.element.open = open;
   }
 
   /** Rings around a pad position (also while the marker is being dragged). */
@@ -206,7 +311,13 @@ export class MapView {
   private fitTo(bounds: [number, number, number, number] | null): void {
     if (!bounds) return;
     const legend = this.legend.width();
-    this.map.fitBounds(bounds, { padding: { top: 50, bottom: 40, left: 50, right: Math.max(50, legend + 30) }, duration: 0, maxZoom: 17.5 });
+    // Never more padding than a third of the map, or fitBounds gives up and zooms far out.
+    const width = this.map.getContainer().clientWidth;
+    const height = this.map.getContainer().clientHeight;
+    const side = Math.min(50, width / 8);
+    const right = Math.min(Math.max(side, legend + 30), width / 3);
+    const vertical = Math.min(50, height / 8);
+    this.map.fitBounds(bounds, { padding: { top: vertical, bottom: vertical, left: side, right }, duration: 0, maxZoom: 17.5 });
   }
 
   setLayerVisible(group: LayerGroup, visible: boolean): void {

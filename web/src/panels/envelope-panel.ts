@@ -204,8 +204,10 @@ function statusText(e: EnvelopeState): string {
 function limitsTable(e: EnvelopeResult, units: UnitSystem, loadable: boolean, load: (from: number, speed: number) => void): HTMLElement {
   const unit = fieldUnit('speed', units);
   const speed = (v: number) => inUnit(v, unit, unit.label === 'mph' ? 0 : 1);
+  // The unit sits in the column head, so a narrow panel never wraps it under the number.
+  const bare = (v: number) => grouped(v / unit.si, unit.label === 'mph' ? 0 : 1);
   const rows = e.limits.map((d) => {
-    const limit = d.limit === null ? `none (fails at ${speed(e.speeds[0])})` : d.aboveGrid ? `≥ ${speed(d.limit)}` : speed(d.limit);
+    const limit = d.limit === null ? `none (fails at ${bare(e.speeds[0])})` : d.aboveGrid ? `≥ ${bare(d.limit)}` : bare(d.limit);
     const cells: (string | Node)[] = [`${d.from}°`, limit, d.firstFailure.join('; ') || (d.aboveGrid ? 'none within the grid' : '–')];
     if (loadable) {
       const button = el('button', { class: 'link-button', text: 'Load', attrs: { type: 'button', 'aria-label': `Load wind ${d.limit === null ? speed(e.speeds[0]) : speed(d.limit)} from ${d.from}°` }, data: { loadFrom: String(d.from) } });
@@ -214,7 +216,7 @@ function limitsTable(e: EnvelopeResult, units: UnitSystem, loadable: boolean, lo
     }
     return el('tr', {}, ...cells.map((c, i) => (i === 0 ? el('th', { attrs: { scope: 'row' } }, c) : el('td', {}, c))));
   });
-  const head = ['From', 'Limit', 'First test to fail above it', ...(loadable ? [''] : [])];
+  const head = ['From', `Limit (${unit.label})`, 'First test to fail above it', ...(loadable ? [''] : [])];
   return el(
     'table',
     { class: 'envelope-table' },

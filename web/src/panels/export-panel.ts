@@ -2,6 +2,8 @@ import type { AppState, Store } from '../app/store.js';
 import type { Actions } from './actions.js';
 import { el, replaceChildren } from './dom.js';
 import { ENVELOPE_FILES, type EnvelopeFileName } from '../study/envelope-files.js';
+import type { Paper } from '../../../src/report/sheet/index.js';
+import { paperFor } from '../units/systems.js';
 
 /**
  * The "Files" tab: every file of the command line's results folder for the last run, with the
@@ -10,10 +12,11 @@ import { ENVELOPE_FILES, type EnvelopeFileName } from '../study/envelope-files.j
 
 const DESCRIPTIONS: Record<string, string> = {
   'sheet.pdf': 'Review sheet for the safety officer: map and record to sign (PDF)',
-  'map.svg': 'The review sheet\u2019s map alone (SVG)',
+  'map.svg': 'The review sheet\u2019s map alone, as the command line draws it (SVG)',
   'landings.csv': 'Landing points, one row per sample (CSV)',
   'summary.json': 'Run summary (JSON)',
-  'landings.geojson': 'Landing points (GeoJSON)',
+  'landings.geojson': 'Landing points (GeoJSON; a stated subset above 100,000 landings)',
+  'landings.fgb': 'Every landing point, for map programs (FlatGeobuf)',
   'contours.geojson': 'Probability regions (GeoJSON)',
   'keepout.geojson': 'Keep-out zone (GeoJSON)',
   'risk.geojson': 'Individual-risk lines and where people may stand (GeoJSON)',
@@ -31,7 +34,7 @@ const ENVELOPE_DESCRIPTIONS: Record<EnvelopeFileName, string> = {
 };
 
 /** The review sheet first: it is what most people came for. */
-const FIRST = ['sheet.pdf', 'map.svg'];
+const FIRST = ['map.svg'];
 
 export function exportPanel(store: Store, actions: Actions): HTMLElement {
   const list = el('ul', { class: 'export-list', data: { test: 'exports' } });
@@ -42,7 +45,7 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
       sheetRow.hidden = true;
       return;
     }
-    const names = study.files.map((f) => f.name).sort((a, b) => rank(a) - rank(b));
+    const names = study.files.map((f) => f.name).filter((name) => name !== 'sheet.pdf').sort((a, b) => rank(a) - rank(b));
     const items: HTMLElement[] = names.map((name) => {
       const button = el('button', { text: name, attrs: { type: 'button' }, data: { export: name } });
       button.addEventListener('click', () => actions.exportFile(name));
@@ -56,27 +59,39 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
     sheetRow.hidden = study.filesError !== null;
   };
 
-  // The sheet again on another paper size, in the units chosen at the top of the page.
-  const paper = el('select', { attrs: { id: 'sheet-paper', 'aria-label': 'Paper size of the review sheet' } }, el('option', { text: 'A4', attrs: { value: 'a4' } }), el('option', { text: 'US Letter', attrs: { value: 'letter' } }));
-  const redraw = el('button', { text: 'Review sheet in the page\u2019s units', attrs: { type: 'button' }, data: { export: 'sheet-redrawn' } });
+  // ONE review-sheet button: in the units chosen at the top of the page, on A4 for metric and US
+  // Letter for imperial unless a paper is chosen here. The command line's sheet.pdf is not listed
+  // beside it, so nobody prints a metric A4 sheet by mistake.
+  const paper = el(
+    'select',
+    { attrs: { id: 'sheet-paper', 'aria-label': 'Paper size of the review sheet' } },
+    el('option', { text: 'Paper: follows the units', attrs: { value: 'auto' } }),
+    el('option', { text: 'A4', attrs: { value: 'a4' } }),
+    el('option', { text: 'US Letter', attrs: { value: 'letter' } }),
+  );
+  const chosenPaper = (): Paper => (paper.value === 'a4' || paper.value === 'letter' ? paper.value : paperFor(store.get().units));
+  const redraw = el('button', { class: 'primary', attrs: { type: 'button' }, data: { export: 'sheet' } });
   const sheetStatus = el('span', { class: 'muted', attrs: { role: 'status' } });
+  const label = () => {
+    const units = store.get().units;
+    redraw.textContent = `Review sheet (PDF): ${units}, ${chosenPaper() === 'a4' ? 'A4' : 'US Letter'}`;
+  };
+  paper.addEventListener('change', label);
   redraw.addEventListener('click', () => {
     sheetStatus.textContent = ' drawing…';
-    actions.exportReviewSheet(paper.value === 'letter' ? 'letter' : 'a4').then(
+    actions.exportReviewSheet(chosenPaper()).then(
       () => (sheetStatus.textContent = ''),
       (error: unknown) => (sheetStatus.textContent = ` failed: ${error instanceof Error ? error.message : String(error)}`),
     );
   });
   const sheetRow = el(
     'div',
-    { class: 'row' },
-    redraw,
-    el('label', { text: 'on', attrs: { for: 'sheet-paper' } }),
-    paper,
-    sheetStatus,
-    el('span', { class: 'muted', text: 'With the wind-limits page when the limits were computed for this very scenario.' }),
+    { class: 'sheet-export', data: { test: 'sheet-export' } },
+    el('div', { class: 'row' }, redraw, paper, sheetStatus),
+    el('p', { class: 'note', text: 'For the safety officer: map and record to sign, in the page\u2019s units; with the wind-limits page when the limits were computed for this very scenario. Printing the page itself gives a picture of the screen, not the record.' }),
   );
   sheetRow.hidden = true;
+  label();
   // The wind limits' files, once the "Wind limits" tab has computed them.
   const envelopeHeading = el('p', { class: 'scenario-title', text: 'Wind limits' });
   const envelopeList = el('ul', { class: 'export-list', data: { test: 'envelope-exports' } });
@@ -100,6 +115,7 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
 
   store.subscribe((state, previous) => {
     if (state.study !== previous.study) render(state);
+    if (state.units !== previous.units) label();
     if (state.envelope.outcome !== previous.envelope.outcome) renderEnvelope(state);
   });
   render(store.get());
@@ -108,8 +124,8 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
     'section',
     { class: 'panel-section', attrs: { 'aria-label': 'Files' } },
     el('p', { class: 'note', text: 'The same files as the command line\u2019s results folder, made here in the page; nothing is sent anywhere.' }),
-    list,
     sheetRow,
+    list,
     envelopeHeading,
     envelopeList,
     envelopeStatus,

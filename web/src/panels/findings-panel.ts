@@ -1,7 +1,8 @@
 import { studyIsCurrent, type AppState, type Store } from '../app/store.js';
 import type { Study } from '../study/compose.js';
 import { grouped, inUnit, level, percent } from '../units/format.js';
-import { figureUnits, type FigureUnits } from '../units/systems.js';
+import { figureUnits, type FigureUnits, type UnitSystem } from '../units/systems.js';
+import { areaText } from '../../../src/report/sheet/units.js';
 import { el, replaceChildren } from './dom.js';
 import { inputWords } from '../../../src/report/sheet/input-names.js';
 import type { InputSensitivity } from '../../../src/sensitivity/study.js';
@@ -20,7 +21,7 @@ export function findingsPanel(store: Store): HTMLElement {
       replaceChildren(body, el('p', { class: 'muted', text: 'No results yet. Press Run to fly the samples.' }));
       return;
     }
-    replaceChildren(body, ...findings(state.study, figureUnits(state.units), studyIsCurrent(state)));
+    replaceChildren(body, ...findings(state.study, figureUnits(state.units), state.units, studyIsCurrent(state)));
   };
   store.subscribe((state, previous) => {
     if (state.study !== previous.study || state.units !== previous.units || state.accepted !== previous.accepted) render(state);
@@ -43,10 +44,18 @@ function table(caption: string, name: string, head: string[], rows: (string | No
   );
 }
 
-function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[] {
+function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boolean): HTMLElement[] {
+  // One rule for areas on the sheet, the page and the terminal (src/report/sheet/units.ts).
+  const area = (m2: number) => areaText(m2, system);
   const s = study.summary;
   const out: HTMLElement[] = [];
   if (!current) out.push(el('p', { class: 'stale', attrs: { role: 'status' }, data: { test: 'stale' }, text: 'These results are from the scenario as it was before your last change. Run again to update them.' }));
+
+  // Warnings first: above every figure, where they are read before the figures they qualify.
+  const warnings = [...s.warnings, ...s.scenarioWarnings];
+  if (warnings.length > 0) {
+    out.push(el('div', { class: 'warnings', attrs: { role: 'note' }, data: { finding: 'warnings' } }, el('p', { class: 'warnings-title', text: `Warnings (${warnings.length})` }), el('ul', {}, ...warnings.map((w) => el('li', { text: w })))));
+  }
 
   const rate = s.samples / Math.max(1e-3, study.flightTime_ms / 1000);
   out.push(
@@ -60,7 +69,7 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
   if (Number.isFinite(s.keepOut.area_m2)) {
     const k = s.keepOut;
     figures.appendChild(figure('keepout-reach', 'Keep-out zone reaches', inUnit(k.maxDistance_m, u.length), `from the pad (${level(k.level)} region + ${inUnit(k.margin_m, u.length)} margin)`));
-    figures.appendChild(figure('keepout-area', 'Keep-out zone area', inUnit(k.area_m2, u.area, 2)));
+    figures.appendChild(figure('keepout-area', 'Keep-out zone area', area(k.area_m2)));
     figures.appendChild(figure('keepout-outside', 'Landings outside the zone', percent(k.outsideShare), `(95 % upper bound ${percent(k.outsideUpper95)})`));
   }
   figures.appendChild(figure('apogee', 'Apogee (median)', inUnit(s.apogee_m.p50, u.length), `5–95 %: ${inUnit(s.apogee_m.p05, u.length)} – ${inUnit(s.apogee_m.p95, u.length)}; highest ${inUnit(s.apogee_m.max, u.length)}`));
@@ -71,12 +80,20 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
   if (study.analysis) {
     const octants = study.analysis.keepOut.properties.octants_m;
     const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
-    const reach = table('Keep-out zone: farthest point by direction from the pad', 'octants', ['', ...names], [['reach', ...names.map((n) => (octants[n] === null ? '–' : inUnit(octants[n]!, u.length)))]]);
-    reach.classList.add('octants');
-    out.push(reach);
+    // Two rows of four directions, numbers only (the unit is in the caption): fits a phone's width
+    // in feet as in metres, with no unit wrapped under its number.
+    const cell = (n: (typeof names)[number]) => el('td', {}, el('span', { class: 'octant-name', text: n }), octants[n] === null ? '–' : grouped(octants[n]! / u.length.si));
+    out.push(
+      el(
+        'table',
+        { class: 'octants', data: { finding: 'octants' } },
+        el('caption', { text: `Keep-out zone: farthest point by direction from the pad (${u.length.label})` }),
+        el('tbody', {}, el('tr', {}, ...names.slice(0, 4).map(cell)), el('tr', {}, ...names.slice(4).map(cell))),
+      ),
+    );
   }
   if (s.contours.length > 0) {
-    out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'Samples in band'], s.contours.map((c) => [level(c.level), inUnit(c.area_m2, u.area, 2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
+    out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'In band'], s.contours.map((c) => [level(c.level), area(c.area_m2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
   }
   if (s.modes.length > 1) {
     out.push(table('Modes', 'modes', ['Mode', 'Probability', 'Samples', 'Landed'], s.modes.map((m) => [m.name, percent(m.probability), grouped(m.samples), grouped(m.landed)])));
@@ -87,12 +104,12 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
       table(
         'Marked areas: chance per flight of a landing inside',
         'areas',
-        ['Area', 'Hits', 'Probability', '95 % upper bound', 'Keep-out zone'],
-        s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'overlaps' : '–']),
+        ['Area', 'Hits', 'Chance', '95 % bound', 'Overlaps zone'],
+        s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'yes' : 'no']),
       ),
     );
   }
-  if (s.risk) out.push(...riskFindings(s.risk, u));
+  if (s.risk) out.push(...riskFindings(s.risk, u, area));
   if (s.sensitivity && s.sensitivity.inputs.length > 0) {
     const sensitivity = s.sensitivity;
     const data = table(
@@ -114,15 +131,11 @@ function findings(study: Study, u: FigureUnits, current: boolean): HTMLElement[]
       ),
     );
   }
-  const warnings = [...s.warnings, ...s.scenarioWarnings];
-  if (warnings.length > 0) {
-    out.push(el('div', { class: 'warnings', data: { finding: 'warnings' } }, el('p', { class: 'warnings-title', text: 'Warnings' }), el('ul', {}, ...warnings.map((w) => el('li', { text: w })))));
-  }
   return out;
 }
 
 /** Risk to people: per flight, each figure against the user's criterion where one is set. */
-function riskFindings(r: RiskSummary, u: FigureUnits): HTMLElement[] {
+function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => string): HTMLElement[] {
   const out: HTMLElement[] = [];
   const st = r.settings;
   const harm = st.casualtyEnergy_J !== null ? `a casualty when the impact energy reaches ${st.casualtyEnergy_J} J` : 'casualty chance by impact energy from your table';
@@ -137,7 +150,7 @@ function riskFindings(r: RiskSummary, u: FigureUnits): HTMLElement[] {
   standing.classList.add('octants');
   out.push(standing);
   out.push(
-    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Known from the samples?'], r.lines.map((l) => [smallRate(l.level), inUnit(l.area_m2, u.area, 2), inUnit(l.maxDistance_m, u.length), l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`])),
+    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Known from the samples?'], r.lines.map((l) => [smallRate(l.level), area(l.area_m2), inUnit(l.maxDistance_m, u.length), l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`])),
   );
   if (r.areas.length > 0) {
     out.push(

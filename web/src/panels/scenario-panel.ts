@@ -147,17 +147,28 @@ function fieldRow(field: DayField, state: AppState, actions: Actions): FieldRow 
   const unitLabel = el('span', { class: 'unit', attrs: { 'aria-hidden': 'true' } });
   const message = el('p', { class: 'field-message', attrs: { id: messageId }, data: { messageFor: field.issuePath } });
   let unit: Unit | null = null;
+  /** What the box held when last written into the draft (or shown from it). */
+  let written = '';
 
   const showValue = (s: AppState) => {
     const shown = shownValue(field, valueAt(s.draft.json, field.path), s.units);
     unit = shown.unit;
     input.value = shown.text;
+    written = shown.text;
     unitLabel.textContent = shown.unit?.label ?? '';
     input.setAttribute('aria-label', shown.unit ? `${field.label} (${shown.unit.label})` : field.label);
   };
   showValue(state);
 
-  input.addEventListener('change', () => actions.editField(field.path, writtenValue(field, input.value, unit)));
+  // Validated on every input event, not only when the box loses focus: after Ctrl+Z (or any edit)
+  // the message and the Run button follow the value in the box at once.
+  const edit = () => {
+    if (input.value === written) return;
+    written = input.value;
+    actions.editField(field.path, writtenValue(field, input.value, unit));
+  };
+  input.addEventListener('input', edit);
+  input.addEventListener('change', edit);
 
   const update = (s: AppState) => {
     const issues = s.draftIssues.filter((issue) => issueConcerns(issue, field.issuePath));

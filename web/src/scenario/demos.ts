@@ -11,6 +11,8 @@ export interface Demo {
   fileName: string;
   text: string;
   files: AttachedFiles;
+  /** One line: what this demo shows and what to try first. */
+  intro: string;
 }
 
 const SCENARIO_TEXTS = import.meta.glob('../../../scenarios/*.json', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
@@ -27,6 +29,16 @@ const LABELS: Record<string, string> = {
   'drone-power-loss': 'Camera drone losing power',
 };
 
+/**
+ * What each demo shows, in one line. The club rocket's problems are there on purpose, so a new
+ * reader does not take them for a fault of the program, and learns where such problems are shown.
+ */
+const INTROS: Record<string, string> = {
+  'club-rocket': 'Demo with problems on purpose: its keep-out zone overlaps the spectators and its forecast wind is outside its wind limits. Try Run, then Wind limits, then drag the pad.',
+  'display-shell': 'Demo: a display shell that sometimes fails to burst. Press Run and see where unburst shells land beside the spectators.',
+  'drone-power-loss': 'Demo: a camera drone losing power on its path. Press Run and see where it can come down.',
+};
+
 /** The order of the picker: the club rocket first (the page opens with it), then by name. */
 const ORDER = ['club-rocket', 'display-shell', 'drone-power-loss'];
 
@@ -36,7 +48,7 @@ export const DEMOS: readonly Demo[] = Object.entries(SCENARIO_TEXTS)
     const id = fileName.replace(/\.json$/, '');
     // Only the curves the scenario names travel with it (and are offered for saving beside it).
     const files = Object.fromEntries(Object.entries(MOTORS).filter(([motorPath]) => text.includes(`"${motorPath}"`)));
-    return { id, label: LABELS[id] ?? fileName, fileName, text, files };
+    return { id, label: LABELS[id] ?? fileName, fileName, text, files, intro: INTROS[id] ?? 'A demo scenario: press Run to fly it.' };
   })
   .sort((a, b) => rank(a.id) - rank(b.id) || a.id.localeCompare(b.id));
 

@@ -1,6 +1,6 @@
 import { createLocalFrame } from '../../../src/analysis/geodesy.js';
 import { flyNominal } from '../../../src/dispersion/runner.js';
-import { railExitSpeedWarnings } from '../../../src/scenario/warnings.js';
+import { machWarnings, railExitSpeedWarnings } from '../../../src/scenario/warnings.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
 
 /** The nominal flight, flown by the engine, as the map draws it. */
@@ -32,6 +32,6 @@ export function nominalFlight(scenario: Scenario): NominalFlight {
     track,
     apogee,
     landed: result.status === 0,
-    warnings: railExitSpeedWarnings(scenario, result.railExitSpeed),
+    warnings: [...railExitSpeedWarnings(scenario, result.railExitSpeed), ...machWarnings(scenario, result.maxMach)],
   };
 }

@@ -47,20 +47,18 @@ export function fieldUnit(dimension: Dimension, system: UnitSystem): Unit {
   return unitOf(text, dimension);
 }
 
-/** Units for figures in the findings: distances and heights, areas, speeds. */
+/** Units for figures in the findings: distances and heights, speeds. Areas follow the one area
+ * rule of src/report/sheet/units.ts (areaText), shared with the sheet and the terminal. */
 export interface FigureUnits {
   length: Unit;
-  area: Unit;
   speed: Unit;
 }
 
 export function figureUnits(system: UnitSystem): FigureUnits {
-  const squareFoot = unitOf('ft2', 'area').si;
-  const squareMetre = unitOf('m2', 'area').si;
-  return {
-    length: fieldUnit('length', system),
-    // Hectares and acres are what land is measured in: 10,000 m², and 43,560 ft² by definition.
-    area: system === 'metric' ? { text: 'ha', label: 'ha', si: 10_000 * squareMetre } : { text: 'acre', label: 'acres', si: 43_560 * squareFoot },
-    speed: fieldUnit('speed', system),
-  };
+  return { length: fieldUnit('length', system), speed: fieldUnit('speed', system) };
+}
+
+/** The paper a unit system's users print on unless they choose: A4 (ISO 216) with metric, US Letter with imperial. */
+export function paperFor(system: UnitSystem): 'a4' | 'letter' {
+  return system === 'imperial' ? 'letter' : 'a4';
 }
