@@ -25,6 +25,8 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
       apogee: run.apogee,
       flightTime: run.flightTime,
       impactSpeed: run.impactSpeed,
+      impactAngle: run.impactAngle,
+      impactEnergy: impactEnergies(run),
     };
   }
   const set: Required<LandingSet> = {
@@ -68,4 +70,11 @@ function modesWithParachute(run: RunResult, scenario: Scenario): boolean[] {
     if (stages.length === 0 || stop === 'all') return false;
     return stages.some((name) => name !== stop);
   });
+}
+
+/** ½ m v² of every sample with the mass that lands (without propellant for rockets). */
+function impactEnergies(run: RunResult): Float64Array {
+  const out = new Float64Array(run.count);
+  for (let i = 0; i < run.count; i++) out[i] = 0.5 * run.impactMass[i] * run.impactSpeed[i] * run.impactSpeed[i];
+  return out;
 }
