@@ -223,7 +223,7 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
         'Not a compliance figure: people spread evenly over the area, casualty area of each impact from its angle, ' +
         'casualty when the impact energy reaches the threshold (or by the table); all modes counted.';
     });
-    warnings.push(...risk.warnings);
+    // The risk warnings stay in summary.json's risk.warnings, the terminal and the page (the record keeps two pages).
     lap('risk');
   }
   timing.total = performance.now() - started;

@@ -24,6 +24,7 @@ export function riskLinesText(r: RiskSummary): string[] {
     lines.push(`  area risk      ${a.name}: ${e}, ${ir}`);
   }
   const c = r.total.collectiveCriterion ? `; ${r.total.collectiveCriterion}, bound ${r.total.collectiveCriterionUpper95}` : '';
+  for (const w of r.warnings) lines.push(`  warning        ${w}`);
   lines.push(`  casualties     ${rate(r.total.expectedCasualties)} per flight in all areas (95 % bound ${rate(r.total.upper95)})${c}`);
   return lines;
 }

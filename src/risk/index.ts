@@ -76,10 +76,7 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
   for (const line of lines) {
     if (line.resolved) continue;
     const need = line.samplesNeeded === null ? 'many more samples' : `about ${line.samplesNeeded.toLocaleString('en')} samples`;
-    warnings.push(
-      `The ${line.level.toExponential(0)} individual-risk line is not resolved: it rests on about ${Math.floor(line.effectiveSamples)} ` +
-        `effective samples (${MIN_LINE_SAMPLES} wanted), so it is drawn as not known; ${need} would resolve it (or run with --until-stable).`,
-    );
+    warnings.push(`The ${line.level.toExponential(0)} individual-risk line is not resolved (${Math.floor(line.effectiveSamples)} effective samples, ${MIN_LINE_SAMPLES} wanted); ${need} would resolve it (--until-stable).`);
   }
   return {
     settings,

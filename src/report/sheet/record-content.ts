@@ -80,31 +80,6 @@ function riskBlocks(risk: RiskSummary, u: UnitFormatter): Block[] {
       l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`,
     ]),
   });
-  blocks.push({
-    kind: 'table',
-    id: 'risk-modes',
-    columns: [
-      { title: 'Mode', weight: 2 },
-      { title: 'Impact speed, median (95 %)', weight: 1.8, align: 'right' },
-      { title: 'Impact energy, median (95 %)', weight: 1.8, align: 'right' },
-      { title: 'Harmful share', weight: 1.1, align: 'right' },
-      { title: 'Expected casualties', weight: 1.3, align: 'right' },
-    ],
-    rows: risk.modes.map((m) => [
-      m.name,
-      `${u.speed(m.impactSpeed_m_s.p50)} (${u.speed(m.impactSpeed_m_s.p95)})`,
-      `${significant(m.impactEnergy_J.p50, 3)} J (${significant(m.impactEnergy_J.p95, 3)} J)`,
-      percent(m.harmfulShare),
-      smallRate(m.expectedCasualties),
-    ]),
-  });
-  const octants = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
-  blocks.push({
-    kind: 'table',
-    id: 'standing',
-    columns: [{ title: `Risk under ${smallRate(risk.standingLevel)} beyond`, weight: 2.2 }, ...octants.map((o) => ({ title: o, weight: 1, align: 'right' as const }))],
-    rows: [['distance from the pad', ...octants.map((o) => u.length(risk.standingDistance_m[o]))]],
-  });
   return blocks;
 }
 
@@ -342,7 +317,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       { title: 'Touches zone', weight: 0.9, align: 'right' },
     ];
     if (anyPeople) columns.push({ title: 'People', weight: 0.8, align: 'right' }, { title: 'Expected casualties per flight (95 % bound)*', weight: 2.2, align: 'right' });
-    if (risk) columns.push({ title: 'Largest individual risk', weight: 1.3, align: 'right' });
+    const showRisk = false; // in areas.csv, summary.json and the page; the record keeps two pages
     const rows = s.areas.map((a, i) => {
       const r = byName.get(a.name);
       const row = [String(i + 1), a.name, a.kind, grouped(a.hits), percent(a.probability), percent(a.upper95), r ? (r.intersectsKeepOut ? 'yes' : 'no') : 'n/a'];
@@ -351,7 +326,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
         const e = r?.expectedCasualties;
         row.push(people, e !== null && e !== undefined ? `${smallRate(e)} (${smallRate(r?.casualtiesUpper95 ?? null)})` : '-');
       }
-      if (risk) {
+      if (showRisk && risk) {
         const ra = riskOf.get(a.name);
         row.push(ra ? `${smallRate(ra.maxIndividualRisk)}${ra.individualCriterion ? (ra.individualCriterion.startsWith('under') ? ' under' : ' over') : ''}` : '-');
       }
@@ -368,7 +343,9 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       });
     }
   }
-  if (s.risk) blocks.push(...riskBlocks(s.risk, u));
+  // The risk lines and standing distances are in summary.json, the map legend and the page; the
+  // record keeps two pages.
+  void riskBlocks;
 
   const sensitivity = s.sensitivity;
   if (sensitivity && sensitivity.inputs.length > 0) {
