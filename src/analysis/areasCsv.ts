@@ -4,7 +4,8 @@
  *
  * @example
  *   writeAreasCsv(result.areas)
- *   // name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note
+ *   // name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,people_per_m2,sheltered,
+ *   // expected_casualties,expected_casualties_upper95,max_individual_risk,note
  */
 import type { AreaResult } from './areas.js';
 import { neutraliseFormula } from '../scenario/safe-text.js';
@@ -17,7 +18,10 @@ export function csvField(value: string | number | boolean | undefined | null): s
 }
 
 export const AREAS_CSV_HEADER =
-  'name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note';
+  'name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,people_per_m2,sheltered,' +
+  'expected_casualties,expected_casualties_upper95,max_individual_risk,note';
+
+const sig = (x: number | undefined, digits = 3) => (x === undefined ? undefined : x.toPrecision(digits));
 
 export function writeAreasCsv(areas: AreaResult[]): string {
   const rows = areas.map((a) =>
@@ -30,7 +34,11 @@ export function writeAreasCsv(areas: AreaResult[]): string {
       a.intersectsKeepOut,
       a.area_m2.toFixed(1),
       a.people,
-      a.expectedCasualties === undefined ? undefined : a.expectedCasualties.toPrecision(3),
+      sig(a.peoplePerM2, 4),
+      a.sheltered,
+      sig(a.expectedCasualties),
+      sig(a.casualtiesUpper95),
+      sig(a.maxIndividualRisk),
       a.note,
     ]
       .map(csvField)

@@ -37,6 +37,8 @@ export interface GridOptions {
   maxNodes?: number;
   /** Nodes per bandwidth wanted (default 4): finer adds cost, not accuracy. */
   nodesPerBandwidth?: number;
+  /** Use this grid geometry instead of fitting one (two estimates on the same nodes). */
+  frame?: Omit<DensityGrid, 'values'>;
 }
 
 /** Kernel reach in bandwidths: the grid margin and the convolution's truncation. */
@@ -156,7 +158,7 @@ export function densityGrid(
   options: GridOptions = {},
 ): DensityGrid {
   if (east.length === 0) throw new Error('no landing points to estimate a density from');
-  const frame = fitGrid(east, north, bandwidth, options);
+  const frame = options.frame ?? fitGrid(east, north, bandwidth, options);
   const mass = linearBin(east, north, weight, frame);
   const rows = new Float64Array(mass.length);
   convolveAxis(mass, rows, frame.nx, frame.ny, gaussianTaps(bandwidth.east, frame.dx), true);

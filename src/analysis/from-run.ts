@@ -25,6 +25,8 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
       apogee: run.apogee,
       flightTime: run.flightTime,
       impactSpeed: run.impactSpeed,
+      impactAngle: run.impactAngle,
+      impactEnergy: impactEnergies(run),
     };
   }
   const set: Required<LandingSet> = {
@@ -39,6 +41,8 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
     apogee: new Float64Array(landed),
     flightTime: new Float64Array(landed),
     impactSpeed: new Float64Array(landed),
+    impactAngle: new Float64Array(landed),
+    impactEnergy: new Float64Array(landed),
   };
   let j = 0;
   for (let i = 0; i < run.count; i++) {
@@ -51,6 +55,9 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
     set.apogee[j] = run.apogee[i];
     set.flightTime[j] = run.flightTime[i];
     set.impactSpeed[j] = run.impactSpeed[i];
+    set.impactAngle[j] = run.impactAngle[i];
+    // ½ m v² with the mass that lands (without propellant for rockets).
+    set.impactEnergy[j] = 0.5 * run.impactMass[i] * run.impactSpeed[i] * run.impactSpeed[i];
     j++;
   }
   return set;
@@ -63,4 +70,11 @@ function modesWithParachute(run: RunResult, scenario: Scenario): boolean[] {
     if (stages.length === 0 || stop === 'all') return false;
     return stages.some((name) => name !== stop);
   });
+}
+
+/** ½ m v² of every sample with the mass that lands (without propellant for rockets). */
+function impactEnergies(run: RunResult): Float64Array {
+  const out = new Float64Array(run.count);
+  for (let i = 0; i < run.count; i++) out[i] = 0.5 * run.impactMass[i] * run.impactSpeed[i] * run.impactSpeed[i];
+  return out;
 }

@@ -25,6 +25,8 @@ import { countInside, createPolygonIndex } from './pointInPolygon.js';
 import { polygonsToEastNorth } from './projectGeometry.js';
 import type { ContourFeature, ContourProperties, FeatureCollection, KeepOutFeature, LandingSet, MultiPolygon } from './types.js';
 import { effectiveSampleSize } from './weightedStats.js';
+import { assessRisk, type RiskResult } from '../risk/index.js';
+import type { RiskSettings } from '../risk/settings.js';
 
 export interface AnalysisOptions {
   /** Fixed kernel bandwidth in metres (one number for both axes, or per axis). */
@@ -33,8 +35,13 @@ export interface AnalysisOptions {
   maxGridNodes?: number;
   /** Grid nodes per bandwidth (default 4). */
   nodesPerBandwidth?: number;
-  /** Assumed lethal area per impact for the indicative casualty figure, m² (default 1). */
-  lethalArea_m2?: number;
+  /**
+   * The harm model (src/risk/settings.ts). With it, and impact energies in the landings, the result
+   * carries the risk to people and the areas their expected casualties.
+   */
+  risk?: RiskSettings;
+  /** Samples the run flew (for the samples a risk line needs; default: the landed count). */
+  samples?: number;
 }
 
 export interface GridSummary {
@@ -67,6 +74,8 @@ export interface AnalysisResult {
   keepOutOutsideBoundary?: { area_m2: number; share: number };
   areas: AreaResult[];
   ellipses: ModeEllipse[];
+  /** Risk to people (absent without risk settings or without impact energies). */
+  risk?: RiskResult;
   warnings: string[];
   /** Milliseconds per stage. */
   timing_ms: Record<string, number>;
@@ -188,7 +197,6 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
     frame,
     keepOut,
     effectiveN: effectiveSamples,
-    lethalArea_m2: options.lethalArea_m2,
   });
   for (const area of areas) {
     if (area.intersectsKeepOut) warnings.push(`Area "${area.name}" (${area.kind}) overlaps the keep-out zone.`);
@@ -203,6 +211,25 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
 
   const ellipses = modeEllipses(set, levels);
   lap('ellipses');
+
+  let risk: RiskResult | undefined;
+  if (options.risk !== undefined && set.impactEnergy !== undefined) {
+    risk = assessRisk(set, site, options.risk, { samples: options.samples });
+    risk.areas.forEach((r, k) => {
+      const area = areas[k];
+      area.maxIndividualRisk = r.maxIndividualRisk;
+      if (r.peoplePerM2 === null || r.expectedCasualties === null) return;
+      area.peoplePerM2 = r.peoplePerM2;
+      area.sheltered = r.sheltered;
+      area.expectedCasualties = r.expectedCasualties;
+      area.casualtiesUpper95 = r.upper95 ?? undefined;
+      area.note =
+        'Not a compliance figure: people spread evenly over the area, casualty area of each impact from its angle, ' +
+        'casualty when the impact energy reaches the threshold (or by the table); all modes counted.';
+    });
+    // The risk warnings stay in summary.json's risk.warnings, the terminal and the page (the record keeps two pages).
+    lap('risk');
+  }
   timing.total = performance.now() - started;
 
   return {
@@ -227,6 +254,7 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
     ...(outsideBoundary ? { keepOutOutsideBoundary: outsideBoundary } : {}),
     areas,
     ellipses,
+    ...(risk ? { risk } : {}),
     warnings,
     timing_ms: timing,
   };

@@ -11,8 +11,9 @@ import { COORDINATE_DECIMALS, roundTo } from './geojsonWriters.js';
 import type { AnalysisResult } from './index.js';
 import { polygonsOf } from './projectGeometry.js';
 import type { Ring } from './rings.js';
-import type { AreaGeometry } from './types.js';
+import type { AreaGeometry, MultiPolygon, Polygon } from './types.js';
 import { xmlCharacters } from '../scenario/safe-text.js';
+import { riskFeatures } from '../risk/geojson.js';
 
 export function escapeXml(text: string): string {
   return xmlCharacters(text)
@@ -32,6 +33,10 @@ const STYLES: Record<string, { line: string; fill: string }> = {
   contour: { line: 'ff0080ff', fill: '330080ff' },
   keepout: { line: 'ff0000ff', fill: '400000ff' },
   area: { line: 'ffff8000', fill: '30ff8000' },
+  // Individual-risk lines: deep violet, no fill; lines the samples do not resolve are paler.
+  risk: { line: 'ff800040', fill: '00000000' },
+  riskUnknown: { line: '80c080a0', fill: '00000000' },
+  standing: { line: 'ff000000', fill: '00000000' },
 };
 
 function ringXml(ring: Ring): string {
@@ -79,6 +84,35 @@ function placemark(
   );
 }
 
+/** Layers "Individual risk" (one placemark per level) and "Standing distance" (the octant ring). */
+function riskFolders(result: AnalysisResult, site: Site): string {
+  const features = riskFeatures(result.risk!, site.pad);
+  const lines = features
+    .filter((f) => f.properties?.kind === 'individual-risk' && (f.geometry as MultiPolygon).coordinates.length > 0)
+    .map((f) => {
+      const p = f.properties as { level: number; resolved: boolean; area_m2: number; maxDistance_m: number; samplesNeeded: number | null };
+      return placemark(
+        `Individual risk ${p.level.toExponential(0)} per flight${p.resolved ? '' : ' (not resolved by the samples)'}`,
+        p.resolved ? 'risk' : 'riskUnknown',
+        geometryXml(f.geometry as MultiPolygon),
+        { level: p.level, resolved: p.resolved, area_m2: p.area_m2, maxDistance_m: p.maxDistance_m, samplesNeeded: p.samplesNeeded ?? undefined },
+      );
+    })
+    .join('');
+  const ring = features
+    .filter((f) => f.properties?.kind === 'standing-distance')
+    .map((f) =>
+      placemark(
+        `Risk under ${(f.properties as { level: number }).level.toExponential(0)} per flight beyond this line`,
+        'standing',
+        polygonXml((f.geometry as Polygon).coordinates as Ring[]),
+        f.properties as Record<string, number>,
+      ),
+    )
+    .join('');
+  return `<Folder><name>Individual risk</name>${lines}</Folder><Folder><name>Standing distance</name>${ring}</Folder>`;
+}
+
 export function writeKml(result: AnalysisResult, site: Site, title = 'Strewn landing analysis'): string {
   const styles = Object.entries(STYLES)
     .map(
@@ -124,11 +158,14 @@ export function writeKml(result: AnalysisResult, site: Site, title = 'Strewn lan
           upper95: figures?.upper95,
           people: area.people,
           expectedCasualties: figures?.expectedCasualties,
+          expectedCasualtiesUpper95: figures?.casualtiesUpper95,
+          maxIndividualRisk: figures?.maxIndividualRisk,
         },
         figures?.note,
       );
     })
     .join('');
+  const risk = result.risk ? riskFolders(result, site) : '';
   const pad =
     `<Placemark><name>Pad</name><Point><coordinates>` +
     `${roundTo(site.pad.lon, COORDINATE_DECIMALS)},${roundTo(site.pad.lat, COORDINATE_DECIMALS)}` +
@@ -142,6 +179,7 @@ export function writeKml(result: AnalysisResult, site: Site, title = 'Strewn lan
     `<Folder><name>Keep-out zone</name>${keepOut}</Folder>` +
     pad +
     `<Folder><name>Areas</name>${areas}</Folder>` +
+    risk +
     '</Document></kml>\n'
   );
 }

@@ -29,6 +29,10 @@ export const MIN_LANDINGS = 10;
  * optionally `mode` (a name) and `weight` (a positive number; default 1). Columns may come in any
  * order; other columns are ignored, so a `landings.csv` written by `strewn run` reads back as is.
  *
+ * For the risk model: `impact_energy_J`, or `impact_speed_m_s` with `mass_kg` (energy ½ m v²), and
+ * optionally `impact_angle_deg` (above the horizontal; absent means vertical). A risk column that is
+ * present must hold a number on every row: a blank is an error, not a harmless impact.
+ *
  * Each mode's probability is its share of the total weight.
  *
  * @example
@@ -62,6 +66,11 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   const modeCol = col('mode');
   const weightCol = col('weight');
   const sampleCol = col('sample');
+  const energyCol = col('impact_energy_j');
+  const speedCol = col('impact_speed_m_s');
+  const massCol = col('mass_kg');
+  const angleCol = col('impact_angle_deg');
+  const withEnergy = energyCol >= 0 || (speedCol >= 0 && massCol >= 0);
   const body = nonEmpty.slice(1);
   if (body.length < MIN_LANDINGS) {
     throw new LandingsInputError(0, `the file has ${body.length} landing row${body.length === 1 ? '' : 's'}; expected at least ${MIN_LANDINGS}`);
@@ -74,6 +83,9 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
     mode: new Uint8Array(n),
     sample: new Uint32Array(n),
   };
+  const impactEnergy = withEnergy ? new Float64Array(n) : undefined;
+  const impactSpeed = speedCol >= 0 ? new Float64Array(n) : undefined;
+  const impactAngle = withEnergy && angleCol >= 0 ? new Float64Array(n) : undefined;
   const modeNames: string[] = [];
   const number = (row: string[], c: number, what: string, line: number): number => {
     const cell = (row[c] ?? '').trim();
@@ -110,6 +122,26 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
       m = modeNames.push(name) - 1;
     }
     set.mode[i] = m;
+    if (impactSpeed) {
+      impactSpeed[i] = number(row, speedCol, 'impact_speed_m_s', line);
+      if (impactSpeed[i] < 0) throw new LandingsInputError(line, `impact_speed_m_s is ${impactSpeed[i]}; expected 0 or more`);
+    }
+    if (impactEnergy) {
+      if (energyCol >= 0) {
+        impactEnergy[i] = number(row, energyCol, 'impact_energy_J', line);
+      } else {
+        const mass = number(row, massCol, 'mass_kg', line);
+        if (!(mass > 0)) throw new LandingsInputError(line, `mass_kg is ${mass}; expected a positive mass`);
+        impactEnergy[i] = 0.5 * mass * impactSpeed![i] * impactSpeed![i];
+      }
+      if (impactEnergy[i] < 0) throw new LandingsInputError(line, `impact energy is ${impactEnergy[i]} J; expected 0 or more`);
+    }
+    if (impactAngle) {
+      impactAngle[i] = number(row, angleCol, 'impact_angle_deg', line);
+      if (!(impactAngle[i] > 0 && impactAngle[i] <= 90)) {
+        throw new LandingsInputError(line, `impact_angle_deg is ${impactAngle[i]}; expected above 0 and at most 90 degrees above the horizontal`);
+      }
+    }
     const sampleCell = sampleCol >= 0 ? (row[sampleCol] ?? '').trim() : '';
     if (/^\d+$/.test(sampleCell)) {
       const index = Number(sampleCell);
@@ -130,5 +162,12 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   });
   // Weights as probabilities, so every figure reads as a share of flights.
   for (let i = 0; i < n; i++) set.weight[i] /= total;
-  return { ...set, modeNames, modeProbability };
+  return {
+    ...set,
+    modeNames,
+    modeProbability,
+    ...(impactSpeed ? { impactSpeed } : {}),
+    ...(impactEnergy ? { impactEnergy } : {}),
+    ...(impactAngle ? { impactAngle } : {}),
+  };
 }

@@ -40,6 +40,10 @@ export interface LandingSet {
   flightTime?: Float64Array;
   /** Speed at impact, m/s (for the landings file). */
   impactSpeed?: Float64Array;
+  /** Impact angle above the horizontal, deg (absent: taken as vertical by the risk model). */
+  impactAngle?: Float64Array;
+  /** Impact energy ½ m v² of the mass that lands, J (the risk model needs it). */
+  impactEnergy?: Float64Array;
 }
 
 export type AreaGeometry = Polygon | MultiPolygon;

@@ -21,6 +21,9 @@ import { reviewFacts, runDate } from '../report/sheet/review-facts.js';
 import { sheetInputFromTexts } from '../report/sheet/sheet-input.js';
 import { buildSheet } from '../report/sheet/index.js';
 import { VERSION } from '../version.js';
+import { riskSettings, riskSummary, type RiskSettings } from '../risk/index.js';
+import { writeRiskGeoJSON } from '../risk/geojson.js';
+import { riskLinesText } from '../report/risk-text.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { OutputFolder } from './output-folder.js';
 import { UsageError } from './errors.js';
@@ -31,6 +34,9 @@ Draws probability contours, the keep-out zone and area figures from landing poin
 elsewhere (tracker positions, recovered rockets, another tool's output). The CSV needs a header
 and either east_m,north_m (metres from the pad) or lat,lon (WGS 84 degrees); optional columns
 mode (a name) and weight (a positive number). A landings.csv from strewn run reads back as is.
+With --scenario and impact_energy_J (or impact_speed_m_s and mass_kg) columns, and optionally
+impact_angle_deg (vertical when absent), it also gives the risk to people with the scenario's
+risk settings: individual-risk lines (risk.geojson), standing distances and expected casualties.
 
 Options:
   --pad LAT,LON[,ELEV]  the pad in degrees (and metres above sea level)
@@ -100,6 +106,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   const inputs = [path];
   let scenario: Scenario | undefined;
   let scenarioHashText: string | undefined;
+  let risk: RiskSettings | undefined;
   let run: RunSettings = { samples: 0, seed: '', levels: [0.5, 0.9, 0.99], keepOut: { level: 0.99, margin: 25 } };
   if (values.scenario !== undefined) {
     const loaded = await loadScenarioFileWithTerrain(values.scenario as string, { allowOutsideFiles: values['allow-outside-files'] === true });
@@ -108,6 +115,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     run = loaded.scenario.run;
     scenario = loaded.scenario;
     scenarioHashText = loaded.hash;
+    risk = riskSettings(loaded.scenario);
   } else if (values.pad !== undefined) {
     site = { pad: padOption(values.pad as string, 0), areas: [] };
   } else {
@@ -149,7 +157,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   }
   const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), { force: values.force === true, inputs, say: values.quiet === true || values.json === true ? () => {} : undefined });
   try {
-    const analysis = analyze(set, site, run);
+    const analysis = analyze(set, site, run, { risk });
     const counts = set.modeNames.map((_, m) => set.mode.filter((x) => x === m).length);
     const noFlight = { mean: null, p05: null, p50: null, p95: null, max: null };
     // The fields a run's summary has, so that `strewn sheet` reads this folder too; nothing was
@@ -171,6 +179,7 @@ export async function analyzeCommand(args: string[]): Promise<number> {
       modes: set.modeNames.map((name, m) => ({ name, probability: set.modeProbability[m], landings: counts[m], samples: counts[m], landed: counts[m] })),
       ...summaryParts(analysis),
       scenarioWarnings: [],
+      ...(analysis.risk ? { risk: riskSummary(analysis.risk) } : {}),
       caution: CAUTION,
     };
     const summaryText = JSON.stringify(summary, null, 2) + '\n';
@@ -192,11 +201,14 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     out.write('landings.geojson', landingsGeoJSONChunks(set, site.pad));
     if (site.areas.length > 0) out.write('areas.csv', writeAreasCsv(analysis.areas));
     out.write('result.kml', writeKml(analysis, site, `Landings from ${basename(path)}`));
+    if (analysis.risk) out.write('risk.geojson', writeRiskGeoJSON(analysis.risk, site.pad));
     out.commit();
     if (values.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!values.quiet) {
       const lines = [`${basename(path)}: ${grouped(set.east.length)} landings`];
       lines.push(...findingLines(summary, unitFormatter(units)));
+      if (summary.risk) lines.push(...riskLinesText(summary.risk));
+      else if (set.impactEnergy && risk === undefined) lines.push('  risk           not assessed: the risk model needs the vehicle and risk settings of --scenario');
       lines.push(`  results        ${out.destination}`, '', `CAUTION: ${CAUTION}`, '');
       process.stdout.write(lines.join('\n'));
     }

@@ -9,6 +9,7 @@ import { OutputFolder } from './output-folder.js';
 import { progressBar } from './progress.js';
 import { loadForCommand, printWarnings } from './scenario-input.js';
 import { UsageError } from './errors.js';
+import { DEFAULT_STABLE_CAP, STABLE_TOLERANCE, farthestReach, untilStable } from '../risk/until-stable.js';
 import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 import { parseShardOption, shardFolderName } from './shard-option.js';
 import { writeShardFolder } from './shard-folder.js';
@@ -41,6 +42,12 @@ Options:
   --shard K/N       fly only shard K of N (K from 0; contiguous sample ranges) into the shard
                     folder DIR/shard-K-of-N for strewn merge; auto/N takes K from
                     JOB_COMPLETION_INDEX or SLURM_ARRAY_TASK_ID (default DIR: results/<name>-shards)
+  --until-stable    fly again with twice the samples, round after round, until the farthest
+                    reach of the individual-risk line at risk.criteria.individual (or the
+                    smallest risk level) moves less than 2 % between rounds and the samples
+                    resolve that line; the results are those of the last round
+  --stable-cap N    most samples --until-stable flies in one round (default ${DEFAULT_STABLE_CAP.toLocaleString('en')});
+                    it stops there and says so
   -h, --help        this help
 
 Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
@@ -49,7 +56,7 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 export async function runCommand(args: string[]): Promise<number> {
   const timer = new PhaseTimer();
   timer.lap('start and load');
-  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' } });
+  const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
   if (values.help) {
     process.stdout.write(RUN_HELP);
     return 0;
@@ -60,6 +67,9 @@ export async function runCommand(args: string[]): Promise<number> {
   const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
   const seedOption = values.seed as string | undefined;
   if (seedOption !== undefined && seedOption.length === 0) throw new UsageError('--seed: expected a non-empty text');
+  const stableCap = integerOption('stable-cap', values['stable-cap'] as string | undefined, 1, maxSamples) ?? Math.min(DEFAULT_STABLE_CAP, maxSamples);
+  const untilStableWanted = values['until-stable'] === true;
+  if (values['stable-cap'] !== undefined && !untilStableWanted) throw new UsageError('--stable-cap: only means something with --until-stable');
   const quiet = values.quiet === true;
   const json = values.json === true;
   displayChoices(values);
@@ -67,7 +77,7 @@ export async function runCommand(args: string[]): Promise<number> {
   // The workers load their code while this thread reads the scenario and flies the nominal flight.
   const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
   try {
-    return await runStudy(path, values, { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker: prestarted.createWorker });
+    return await runStudy(path, values, { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker: prestarted.createWorker, untilStableWanted, stableCap });
   } finally {
     prestarted.dispose();
   }
@@ -82,16 +92,19 @@ interface RunSettings {
   json: boolean;
   timer: PhaseTimer;
   createWorker: ReturnType<typeof nodeWorkerFactory>;
+  untilStableWanted: boolean;
+  stableCap: number;
 }
 
 async function runStudy(path: string, values: Record<string, unknown>, settings: RunSettings): Promise<number> {
-  const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker } = settings;
+  const { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker, untilStableWanted, stableCap } = settings;
   const loaded = await loadForCommand(path, maxSamples, values['allow-outside-files'] === true);
   const scenario = loaded.scenario;
   const { units, paper } = displayChoices(values, scenario.run);
   const samples = samplesOption ?? scenario.run.samples;
   const seed = seedOption ?? scenario.run.seed;
   const shard = parseShardOption(values.shard as string | undefined, process.env, samples);
+  if (shard && untilStableWanted) throw new UsageError('--until-stable: cannot be combined with --shard (each round flies the whole study)');
   const outDir = shard
     ? join((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-shards`), shardFolderName(shard))
     : ((values.out as string | undefined) ?? join('results', basename(path, extname(path))));
@@ -106,6 +119,39 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
     // The analysis, report and sheet code loads while the workers fly.
     const files = shard ? null : import('./study-files.js');
     files?.catch(() => {});
+    if (untilStableWanted) {
+      const { studyOutcome, writeOutcomeFiles } = await files!;
+      const study = async (n: number) => {
+        const run = await runInPool({ scenario, samples: n, seed }, { workers, createWorker, signal: interrupt.signal, onProgress: (p) => bar.update(p) });
+        bar.end();
+        return studyOutcome(scenario, loaded.hash, run, loaded.warnings);
+      };
+      const stable = await untilStable(samples, stableCap, async (n) => {
+        const o = await study(n);
+        return { outcome: o, reach: farthestReach(o.analysis?.risk), resolved: o.analysis?.risk?.standingLine.resolved ?? true };
+      }, (round) => {
+        if (!quiet && !json) {
+          const moved = round.moved === null ? '' : `, moved ${(round.moved * 100).toFixed(1)} %`;
+          process.stderr.write(`round: ${round.samples.toLocaleString('en')} samples, line reaches ${round.reach_m.toFixed(1)} m${moved}${round.resolved ? '' : ', not resolved yet'}\n`);
+        }
+      });
+      const outcome = stable.outcome;
+      if (outcome.summary.risk) outcome.summary.risk.untilStable = { rounds: stable.rounds, stopped: stable.stopped, tolerance: STABLE_TOLERANCE, cap: stableCap };
+      if (!quiet && !json) {
+        const last = stable.rounds[stable.rounds.length - 1];
+        process.stderr.write(
+          stable.stopped === 'stable'
+            ? `stable: the line is resolved and its farthest reach moved less than ${STABLE_TOLERANCE * 100} % at ${last.samples.toLocaleString('en')} samples\n`
+            : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line settled (--stable-cap raises it)\n`,
+        );
+      }
+      const summary = writeOutcomeFiles(out, scenario, outcome, timer);
+      await honourInterrupt(interrupt.signal);
+      out.commit();
+      if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
+      else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
+      return 0;
+    }
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p) });
     bar.end();
     timer.lap('flights (workers; main thread waits)');

@@ -2,7 +2,7 @@ import type { RunResult } from '../dispersion/results.js';
 import { buildResultFiles } from '../report/result-files.js';
 import type { Paper, UnitSystem } from '../report/sheet/index.js';
 import { allFailedMessage, type RunSummary } from '../report/run-summary.js';
-import { studyOutcome } from '../report/study.js';
+import { studyOutcome, type StudyOutcome } from '../report/study.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import type { OutputFolder } from './output-folder.js';
 import { PhaseTimer } from './phase-timer.js';
@@ -25,4 +25,13 @@ export function writeStudyFiles(out: OutputFolder, scenario: Scenario, hash: str
   return summary;
 }
 
+/** The files of an outcome already analysed (the last round of `run --until-stable`). */
+export function writeOutcomeFiles(out: OutputFolder, scenario: Scenario, outcome: StudyOutcome, timer = new PhaseTimer()): RunSummary {
+  const files = buildResultFiles(scenario, outcome.set, outcome.analysis, outcome.summary);
+  timer.lap('small result files and the sheet');
+  for (const [name, content] of files) out.write(name, content);
+  return outcome.summary;
+}
+
+export { studyOutcome };
 export { honourInterrupt } from './study-files-light.js';

@@ -14,6 +14,10 @@ export interface ChunkResult {
   apogee: Float64Array;
   flightTime: Float64Array;
   impactSpeed: Float64Array;
+  /** Impact angle above the horizontal, deg. */
+  impactAngle: Float64Array;
+  /** Mass that lands, kg. */
+  impactMass: Float64Array;
   mode: Uint8Array;
   /** FlightStatus code: 0 landed; anything else a failed sample. */
   status: Uint8Array;
@@ -30,6 +34,8 @@ export function allocateChunk(start: number, count: number): ChunkResult {
     apogee: new Float64Array(count),
     flightTime: new Float64Array(count),
     impactSpeed: new Float64Array(count),
+    impactAngle: new Float64Array(count),
+    impactMass: new Float64Array(count),
     mode: new Uint8Array(count),
     status: new Uint8Array(count),
     steps: new Uint32Array(count),
@@ -76,6 +82,8 @@ export class DispersionRunner {
       into.apogee[j] = r.apogee;
       into.flightTime[j] = r.flightTime;
       into.impactSpeed[j] = r.impactSpeed;
+      into.impactAngle[j] = r.impactAngle;
+      into.impactMass[j] = r.impactMass;
       into.mode[j] = mode;
       into.status[j] = r.status;
       into.steps[j] = r.steps;

@@ -3,15 +3,13 @@
  * (expected casualties per area and in total, individual risk by place) comes from this small
  * interface, so the casualty model behind it can change without touching the event code.
  *
- * Today it reads the run's indicative area figures (src/analysis/areas.ts: modes that come down
- * without a parachute, people spread evenly over each area, an assumed lethal area per impact),
- * and gives each such landing the same lethal area as its "exposure" for individual risk. That
- * keeps the event's per-area sums equal to the sums of the item sheets. The casualty model of
- * the risk issue (energy threshold, casualty area by impact angle, density, shelter) plugs in
- * here when it is available.
+ * It reads the risk model's figures (src/risk: casualty when the impact energy reaches the
+ * threshold or by the table, casualty area from each impact's angle, people by head count or
+ * density less the sheltered share, all modes counted). Per landing, the exposure is the
+ * landing's probability per flight × casualty area × casualty chance, whose density is the
+ * individual risk per flight.
  */
 import type { AnalysisResult } from '../analysis/index.js';
-import { DEFAULT_LETHAL_AREA_M2 } from '../analysis/areas.js';
 import type { LandingSet } from '../analysis/types.js';
 
 export interface ItemHarm {
@@ -29,22 +27,25 @@ export interface ItemHarm {
   model: string;
 }
 
-/** Reads an item's harm figures from its analysed landings. */
+/** Reads an item's harm figures from its analysed landings (zero where the risk model could not run). */
 export function itemHarm(set: LandingSet, analysis: AnalysisResult): ItemHarm {
+  const risk = analysis.risk;
+  if (risk === undefined) {
+    return {
+      areas: [],
+      total: 0,
+      exposure: new Float64Array(set.east.length),
+      model: 'not assessed: the landings carry no impact energy, so the risk model could not run',
+    };
+  }
   const areas = analysis.areas
     .filter((a) => a.expectedCasualties !== undefined)
     .map((a) => ({ name: a.name, expectedCasualties: a.expectedCasualties! }));
-  const exposure = new Float64Array(set.east.length);
-  let total = 0;
-  for (let i = 0; i < set.weight.length; i++) total += set.weight[i];
-  for (let i = 0; i < set.east.length; i++) {
-    const underCanopy = set.modeCarriesParachute?.[set.mode[i]] ?? false;
-    exposure[i] = underCanopy ? 0 : (set.weight[i] / total) * DEFAULT_LETHAL_AREA_M2;
-  }
+  const st = risk.settings;
   return {
     areas,
-    total: areas.reduce((s, a) => s + a.expectedCasualties, 0),
-    exposure,
-    model: `indicative: impacts without a parachute, lethal area ${DEFAULT_LETHAL_AREA_M2} m² per impact, people spread evenly over each area`,
+    total: areas.reduce((sum, a) => sum + a.expectedCasualties, 0),
+    exposure: Float64Array.from(risk.harm.weight),
+    model: `risk model: casualty at ${st.casualtyProbability ? 'the chance by impact energy from the table' : `${st.casualtyEnergy} J or more`}, casualty area from each impact's angle, people spread evenly over each area`,
   };
 }

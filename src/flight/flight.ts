@@ -70,6 +70,10 @@ export interface FlightResult {
   apogeeNorth: number;
   flightTime: number;
   impactSpeed: number;
+  /** Angle of the ground-relative velocity at impact above the horizontal, deg (90 = straight down). */
+  impactAngle: number;
+  /** Mass that reaches the ground, kg: the mass without propellant (rockets), the object's mass otherwise. */
+  impactMass: number;
   /** Speed along the rail when the rocket left it, m/s (NaN when there is no rail). */
   railExitSpeed: number;
   steps: number;
@@ -80,7 +84,7 @@ export interface FlightResult {
 export function emptyResult(): FlightResult {
   return {
     status: 0, east: 0, north: 0, apogee: 0, apogeeTime: 0, apogeeEast: 0, apogeeNorth: 0, flightTime: 0,
-    impactSpeed: 0, railExitSpeed: NaN, steps: 0, maxMach: 0,
+    impactSpeed: 0, impactAngle: 0, impactMass: 0, railExitSpeed: NaN, steps: 0, maxMach: 0,
   };
 }
 
@@ -609,6 +613,8 @@ export class FlightModel implements OdeSystem {
         out.north = ye[1];
         out.flightTime = t;
         out.impactSpeed = Math.sqrt(ye[3] * ye[3] + ye[4] * ye[4] + ye[5] * ye[5]);
+        out.impactAngle = (Math.atan2(-ye[5], Math.hypot(ye[3], ye[4])) * 180) / Math.PI;
+        out.impactMass = this.dryMass;
         out.steps = steps;
         return out;
       }
@@ -716,6 +722,8 @@ export class FlightModel implements OdeSystem {
     out.east = NaN;
     out.north = NaN;
     out.impactSpeed = NaN;
+    out.impactAngle = NaN;
+    out.impactMass = NaN;
     return out;
   }
 

@@ -4,6 +4,8 @@ import { csvField } from '../analysis/areasCsv.js';
 
 /** Column header of landings.csv (the scenario format document fixes it). */
 export const LANDINGS_HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s';
+/** Columns the risk model adds (scenario-format.md, "Results"), written when the set carries them. */
+export const RISK_COLUMNS = 'impact_energy_J,impact_angle_deg';
 
 const ROWS_PER_PIECE = 10_000;
 
@@ -16,7 +18,8 @@ const ROWS_PER_PIECE = 10_000;
  */
 export function* landingsCsvChunks(set: LandingSet, frame: LocalFrame): Generator<string> {
   const names = set.modeNames.map((n) => csvField(n));
-  yield LANDINGS_HEADER + '\n';
+  const risk = set.impactEnergy !== undefined;
+  yield LANDINGS_HEADER + (risk ? `,${RISK_COLUMNS}` : '') + '\n';
   for (let from = 0; from < set.east.length; from += ROWS_PER_PIECE) {
     const to = Math.min(set.east.length, from + ROWS_PER_PIECE);
     let piece = '';
@@ -25,7 +28,9 @@ export function* landingsCsvChunks(set: LandingSet, frame: LocalFrame): Generato
       piece +=
         `${set.sample ? set.sample[i] : i},${names[set.mode[i]]},${set.east[i].toFixed(3)},${set.north[i].toFixed(3)},` +
         `${lat.toFixed(8)},${lon.toFixed(8)},${set.apogee ? set.apogee[i].toFixed(2) : ''},` +
-        `${set.flightTime ? set.flightTime[i].toFixed(3) : ''},${set.impactSpeed ? set.impactSpeed[i].toFixed(3) : ''}\n`;
+        `${set.flightTime ? set.flightTime[i].toFixed(3) : ''},${set.impactSpeed ? set.impactSpeed[i].toFixed(3) : ''}` +
+        (risk ? `,${set.impactEnergy![i].toFixed(3)},${set.impactAngle && Number.isFinite(set.impactAngle[i]) ? set.impactAngle[i].toFixed(2) : ''}` : '') +
+        '\n';
     }
     yield piece;
   }

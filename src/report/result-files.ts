@@ -4,6 +4,7 @@ import { createLocalFrame } from '../analysis/geodesy.js';
 import { writeContoursGeoJSON, writeKeepOutGeoJSON, landingsGeoJSONChunks } from '../analysis/geojsonWriters.js';
 import { writeAreasCsv } from '../analysis/areasCsv.js';
 import { writeKml } from '../analysis/kml.js';
+import { writeRiskGeoJSON } from '../risk/geojson.js';
 import type { Scenario } from '../scenario/types.js';
 import { landingsCsvChunks } from './landings-csv.js';
 import { landingsFlatGeobufChunks } from '../analysis/flatgeobuf.js';
@@ -61,6 +62,7 @@ export function buildResultFiles(
       ['areas.csv', writeAreasCsv(analysis.areas)],
       ['result.kml', writeKml(analysis, scenario.site, scenario.name)],
     );
+    if (analysis.risk) files.push(['risk.geojson', writeRiskGeoJSON(analysis.risk, scenario.site.pad)]);
   }
   const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), {
     units: options.units ?? scenario.run.units,

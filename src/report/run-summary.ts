@@ -10,6 +10,7 @@ import { chanceOverDuration } from '../scenario/normalize.js';
 import { CAUTION } from './caution.js';
 import { nominalFigures, type ApogeePoint, type StabilitySummary } from './stability.js';
 import type { StudySensitivity } from '../sensitivity/study.js';
+import { riskSummary, type RiskSummary } from '../risk/index.js';
 
 export interface Spread5 {
   mean: number;
@@ -44,6 +45,8 @@ export interface RunSummary extends SummaryParts {
   stability?: StabilitySummary;
   /** Where the nominal flight's apogee is (absent when it failed before apogee). */
   nominalApogee?: ApogeePoint;
+  /** Risk to people, per flight (scenario-format.md, "Results"). */
+  risk?: RiskSummary;
   scenarioWarnings: string[];
   caution: string;
   /**
@@ -152,6 +155,7 @@ export function buildRunSummary(
     warnings: [...failureWarnings(run.count, failedSamples, failureList), ...parts.warnings],
     ...(sensitivity ? { sensitivity } : {}),
     ...nominalParts(scenario),
+    ...(analysis?.risk ? { risk: riskSummary(analysis.risk) } : {}),
     scenarioWarnings: warnings.map((w) => `${w.path}: ${w.message}`),
     caution: CAUTION,
   };

@@ -2,6 +2,7 @@ import type { SummaryParts } from '../analysis/summary.js';
 import type { RunSummary } from './run-summary.js';
 import { CAUTION } from './caution.js';
 import { grouped, levelText, percent, unitFormatter, type UnitFormatter, type UnitSystem } from './format-number.js';
+import { riskLinesText } from './risk-text.js';
 
 /** Contour, keep-out zone and area lines, the same for `run` and `analyze`. */
 export function findingLines(parts: SummaryParts, u: UnitFormatter, withWarnings = true): string[] {
@@ -40,6 +41,7 @@ export function formatRunSummary(s: RunSummary, folder: string, units: UnitSyste
     lines.push(`  farthest       ${u.length(f.distance_m)} from the pad, bearing ${f.bearing_deg.toFixed(0)}° (sample ${f.sample}, ${f.mode})`);
   }
   lines.push(...findingLines(s, u, false));
+  if (s.risk) lines.push(...riskLinesText(s.risk));
   lines.push(`  results        ${folder}`);
   lines.push('');
   lines.push(`CAUTION: ${CAUTION}`);

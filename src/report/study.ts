@@ -4,6 +4,7 @@ import type { LandingSet } from '../analysis/types.js';
 import type { RunResult } from '../dispersion/results.js';
 import type { Issue, Scenario } from '../scenario/types.js';
 import { studySensitivity } from '../sensitivity/study.js';
+import { riskSettings } from '../risk/settings.js';
 import { buildRunSummary, type RunSummary } from './run-summary.js';
 import { landingSubset } from '../analysis/thinning.js';
 
@@ -26,7 +27,10 @@ export interface StudyOutcome {
  */
 export function studyOutcome(scenario: Scenario, hash: string, run: RunResult, warnings: Issue[]): StudyOutcome {
   const set = landingSetFromRun(run, scenario);
-  const analysis = set.east.length >= MIN_LANDINGS_FOR_ANALYSIS ? analyze(set, scenario.site, scenario.run) : null;
+  const analysis =
+    set.east.length >= MIN_LANDINGS_FOR_ANALYSIS
+      ? analyze(set, scenario.site, scenario.run, { risk: riskSettings(scenario), samples: run.count })
+      : null;
   const varies = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0;
   const sensitivity = varies ? studySensitivity(scenario, run) : undefined;
   const subset = landingSubset(set);

@@ -92,6 +92,21 @@ export const SYMBOLS = {
   rings: { color: '#8c8c8c', width: 0.6, dash: [2, 3] } as LineSymbol,
   /** The nominal ground track (the page draws it; the sheet has no track). */
   track: { color: '#141414', width: 1.5 } as LineSymbol,
+  /**
+   * Individual-risk lines, highest level first: dark teal with dash-and-dot patterns of their own,
+   * unlike the regions (solid, dashed, dotted) and the boundary in grey too.
+   */
+  riskLines: [
+    { color: '#0b3d33', width: 1.5, dash: [7, 1.8, 1.5, 1.8], join: 'round' },
+    { color: '#1f6b5a', width: 1.4, dash: [7, 1.8, 1.5, 1.8, 1.5, 1.8], join: 'round' },
+    { color: '#3f8f7c', width: 1.3, dash: [3.5, 1.8], join: 'round' },
+  ] as readonly LineSymbol[],
+  /**
+   * Where people may stand (the octant ring at the individual criterion): dark green-black, a long
+   * dash and two dots. A ring the samples do not resolve is thin and grey, its pattern kept.
+   */
+  standing: { color: '#0e4a3a', width: 1.9, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' } as LineSymbol,
+  standingUnresolved: { color: '#7d8f88', width: 1.1, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' } as LineSymbol,
   /** The pad: a ringed dot (white disc, dark ring, dark centre); radii in points. */
   pad: { ring: '#141414', ringWidth: 1.4, radius: 4.2, centre: 1.5 },
 } as const;
@@ -100,6 +115,10 @@ export type SymbolSet = typeof SYMBOLS;
 
 export function contourSymbol(index: number): LineSymbol {
   return SYMBOLS.contours[Math.min(index, SYMBOLS.contours.length - 1)]!;
+}
+
+export function riskLineSymbol(index: number): LineSymbol {
+  return SYMBOLS.riskLines[Math.min(index, SYMBOLS.riskLines.length - 1)]!;
 }
 
 export function contourLabelSymbolColor(index: number): string {
@@ -154,5 +173,8 @@ export const WORDS = {
    * landed in says so in words, because "0 %" would read as "cannot happen".
    */
   areaChance: (hits: number, probability: string, upper95: string) => (hits === 0 ? `no landing (95 % bound ${upper95})` : `${probability} (95 % bound ${upper95})`),
+  /** The standing ring: 'Individual risk under 1.0e-6 per flight beyond this line (by octant)'. */
+  standing: (level: string, resolved: boolean) => `Individual risk under ${level} per flight beyond this line (by octant)${resolved ? '' : '; not resolved by the samples'}`,
+  riskLine: (level: string, resolved: boolean) => `Individual risk ${level} per flight or more${resolved ? '' : ' (faint: not resolved)'}`,
   areaChanceNote: 'Area labels: chance per flight that a landing falls inside, and its one-sided 95 % upper bound.',
 } as const;

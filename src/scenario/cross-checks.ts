@@ -17,11 +17,30 @@ export function crossCheck(raw: Record<string, unknown>, kind: VehicleKind | und
     ...profileChecks(raw.weather),
     ...forecastChecks(raw.weather),
     ...uncertaintyChecks(raw, kind),
+    ...riskChecks(raw),
   ];
 }
 
 export function isRecord(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+/** An area gives its people one way; the harm model gives casualty energy one way. */
+function riskChecks(raw: Record<string, unknown>): Issue[] {
+  const issues: Issue[] = [];
+  const site = raw.site;
+  if (isRecord(site) && Array.isArray(site.areas)) {
+    site.areas.forEach((area: unknown, i) => {
+      if (isRecord(area) && area.people !== undefined && area.density !== undefined) {
+        issues.push({ path: `site.areas[${i}].density`, message: 'give either people (a head count) or density (people per m²), not both' });
+      }
+    });
+  }
+  const risk = raw.risk;
+  if (isRecord(risk) && risk.casualtyEnergy !== undefined && risk.casualtyProbability !== undefined) {
+    issues.push({ path: 'risk.casualtyProbability', message: 'give either casualtyEnergy (a threshold) or casualtyProbability (a table), not both' });
+  }
+  return issues;
 }
 
 /** The file gives the reference size one way: a diameter or an area. */

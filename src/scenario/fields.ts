@@ -69,7 +69,7 @@ function boundsProblem(given: unknown, q: Quantity, dimension: Dimension, b: Bou
 }
 
 /** Reads one quantity in SI and checks its range; `allowRelative` lets "8 %" through as a fraction. */
-function readQuantity(
+export function readQuantity(
   value: unknown,
   dimension: Dimension,
   bounds: Bounds = {},

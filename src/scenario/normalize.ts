@@ -13,6 +13,7 @@ import {
   type Launch,
   type Motor,
   type RecoveryStage,
+  type RiskInput,
   type RocketShape,
   type RunSettings,
   type Scenario,
@@ -84,6 +85,7 @@ export function normalizeScenario(parsed: ParsedScenario, thrust?: { curve: Thru
     run: normalizeRun(parsed.run),
   };
   if (parsed.notes !== undefined) scenario.notes = parsed.notes;
+  if (parsed.risk !== undefined) scenario.risk = normalizeRisk(parsed.risk);
   return scenario;
 }
 
@@ -93,12 +95,31 @@ function normalizeSite(site: ParsedScenario['site']): Site {
     areas: (site.areas ?? []).map((area) => {
       const copy: Site['areas'][number] = { name: area.name, kind: area.kind, geometry: area.geometry };
       if (area.people !== undefined) copy.people = area.people;
+      if (area.density !== undefined) copy.density = area.density;
+      if (area.sheltered !== undefined) copy.sheltered = area.sheltered;
       return copy;
     }),
   };
   if (site.minimumDistance !== undefined) out.minimumDistance = site.minimumDistance;
   if (site.boundary !== undefined) out.boundary = site.boundary;
   if (site.basemap !== undefined) out.basemap = site.basemap;
+  return out;
+}
+
+/** Only what the file gave; src/risk/settings.ts fills the defaults (so old hashes stay). */
+function normalizeRisk(risk: NonNullable<ParsedScenario['risk']>): RiskInput {
+  const out: RiskInput = {};
+  if (risk.casualtyEnergy !== undefined) out.casualtyEnergy = risk.casualtyEnergy;
+  if (risk.casualtyProbability !== undefined) out.casualtyProbability = risk.casualtyProbability;
+  if (risk.personRadius !== undefined) out.personRadius = risk.personRadius;
+  if (risk.personHeight !== undefined) out.personHeight = risk.personHeight;
+  if (risk.objectRadius !== undefined) out.objectRadius = risk.objectRadius;
+  if (risk.levels !== undefined) out.levels = [...risk.levels].sort((a, b) => b - a);
+  if (risk.criteria !== undefined) {
+    out.criteria = {};
+    if (risk.criteria.individual !== undefined) out.criteria.individual = risk.criteria.individual;
+    if (risk.criteria.collective !== undefined) out.criteria.collective = risk.criteria.collective;
+  }
   return out;
 }
 

@@ -31,6 +31,7 @@ import {
   type PathPart,
 } from './fields.js';
 import { parseValidTime } from './time.js';
+import { casualtyTable, peopleDensity, perFlight, riskLevels, shelteredShare } from './risk-fields.js';
 import { shapeIssues } from './shape-checks.js';
 import type { AreaKind, Issue, TriggerKind, VehicleKind } from './types.js';
 import { rawJsonIssues } from './raw-guards.js';
@@ -94,6 +95,8 @@ const siteSchema = strict({
         kind: oneOf(AREA_KINDS),
         geometry: polygon,
         people: headCount,
+        density: peopleDensity,
+        sheltered: shelteredShare,
       }),
     )
     .optional(),
@@ -274,6 +277,16 @@ const runSchema = (cap: number) =>
     paper: oneOf(['a4', 'letter'] as const).optional(),
   });
 
+const riskSchema = strict({
+  casualtyEnergy: optionalQuantity('energy', NOT_NEGATIVE),
+  casualtyProbability: casualtyTable,
+  personRadius: optionalQuantity('length', POSITIVE),
+  personHeight: optionalQuantity('length', POSITIVE),
+  objectRadius: optionalQuantity('length', POSITIVE),
+  levels: riskLevels,
+  criteria: strict({ individual: perFlight, collective: perFlight }).optional(),
+});
+
 /** Every top-level field; vehicle and launch are parsed on their own once vehicle.kind is known. */
 const topSchema = (cap: number) =>
   strict({
@@ -289,6 +302,7 @@ const topSchema = (cap: number) =>
     uncertainty: strict(uncertaintyShape()).optional(),
     failures: z.array(failureSchema).optional(),
     run: runSchema(cap).optional(),
+    risk: riskSchema.optional(),
   });
 
 // ---------------------------------------------------------------------------------------------

@@ -298,6 +298,10 @@ export interface Area {
   kind: AreaKind;
   geometry: PolygonGeometry;
   people?: number;
+  /** People per m² (instead of `people`). */
+  density?: number;
+  /** Share of the people under cover, 0–1 (absent: 0). */
+  sheltered?: number;
 }
 
 export interface Site {
@@ -327,6 +331,21 @@ export interface TerrainGrid {
   heights: number[];
 }
 
+/**
+ * The harm model as the file gives it, in SI (J, m). Absent fields take the defaults of
+ * src/risk/settings.ts, so a scenario without a `risk` block keeps its hash.
+ */
+export interface RiskInput {
+  casualtyEnergy?: number;
+  /** Casualty probability by impact energy: energies (J) increasing, probabilities 0–1. */
+  casualtyProbability?: { energy: number[]; probability: number[] };
+  personRadius?: number;
+  personHeight?: number;
+  objectRadius?: number;
+  levels?: number[];
+  criteria?: { individual?: number; collective?: number };
+}
+
 export interface Scenario {
   strewn: 1;
   name: string;
@@ -339,6 +358,7 @@ export interface Scenario {
   uncertainty: Partial<Record<UncertaintyName, Spread>>;
   failures: FailureMode[];
   run: RunSettings;
+  risk?: RiskInput;
 }
 
 /** One input problem: the field path, the value given, and what was expected. */

@@ -15,6 +15,7 @@ export type Dimension =
   | 'pressure'
   | 'temperature'
   | 'area'
+  | 'energy'
   | 'angle'
   | 'time'
   | 'fraction'
@@ -136,6 +137,13 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     si: 'm2',
     listed: ['m2', 'cm2', 'mm2', 'ft2', 'in2'],
     units: areaUnits(),
+  },
+  energy: {
+    label: 'an energy',
+    si: 'J',
+    listed: ['J', 'kJ', 'ft lbf'],
+    // "ft·lbf" and "ft*lbf" reach this table as "ft lbf" (see normaliseUnit).
+    units: { J: scale(1), kJ: scale(1000), 'ft lbf': scale(FOOT * POUND_FORCE), 'ft-lbf': scale(FOOT * POUND_FORCE) },
   },
   angle: {
     label: 'an angle',

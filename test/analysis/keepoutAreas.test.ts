@@ -106,22 +106,6 @@ describe('site areas', () => {
     expect(far.intersectsKeepOut).toBe(false);
     expect(half.intersectsKeepOut).toBe(true);
   });
-
-  it('indicative casualty figure E = P(no-parachute landing in area) × people × lethal area / area', () => {
-    // Recount independently with turf's point-in-polygon on lon/lat.
-    let noChute = 0;
-    for (let i = 0; i < set.east.length; i++) {
-      if (set.mode[i] !== 1) continue;
-      if (booleanPointInPolygon(frame.toLonLat(set.east[i], set.north[i]), areas[2].geometry)) noChute += set.weight[i];
-    }
-    const areaM2 = polygonsArea(polygonsToEastNorth(frame, areas[2].geometry));
-    expect(areaM2).toBeCloseTo(200 * 200, -1);
-    expect(crowd.noParachuteProbability).toBeCloseTo(noChute, 12);
-    expect(crowd.expectedCasualties).toBeCloseTo(noChute * 200 * (1 / areaM2), 14);
-    expect(crowd.note).toMatch(/Indicative only, not a compliance figure/);
-    expect(crowd.note).toMatch(/lethal area 1 m²/);
-    expect(half.expectedCasualties).toBeUndefined();
-  });
 });
 
 describe('contour confidence bands', () => {

@@ -35,7 +35,7 @@ describe('writers', () => {
   it('areas.csv: header, one row per area, RFC 4180 quoting', () => {
     const csv = writeAreasCsv(result.areas);
     const lines = csv.trimEnd().split('\n');
-    expect(lines[0]).toBe('name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,expected_casualties,note');
+    expect(lines[0]).toBe('name,kind,hits,probability,upper95,intersects_keep_out,area_m2,people,people_per_m2,sheltered,expected_casualties,expected_casualties_upper95,max_individual_risk,note');
     expect(lines).toHaveLength(2);
     expect(lines[1].startsWith('"Car park, north",parking,')).toBe(true);
     expect(csvField('say "hi"')).toBe('"say ""hi"""');

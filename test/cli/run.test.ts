@@ -3,7 +3,7 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, strewn, tempDir } from './helpers.js';
 
-const HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s';
+const HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s,impact_energy_J,impact_angle_deg';
 
 function run(scenario: string, extra: string[]) {
   const out = join(tempDir(), 'out');
@@ -17,7 +17,7 @@ describe('strewn run on the demo scenarios', () => {
     expect(r.status).toBe(0);
     expect(r.stdout).toContain('never replace');
     const files = readdirSync(r.out).sort();
-    expect(files).toEqual(['.strewn-results', 'areas.csv', 'contours.geojson', 'keepout.geojson', 'landings.csv', 'landings.fgb', 'landings.geojson', 'map.svg', 'result.kml', 'review.json', 'scenario.json', 'sheet.pdf', 'summary.json']);
+    expect(files).toEqual(['.strewn-results', 'areas.csv', 'contours.geojson', 'keepout.geojson', 'landings.csv', 'landings.fgb', 'landings.geojson', 'map.svg', 'result.kml', 'review.json', 'risk.geojson', 'scenario.json', 'sheet.pdf', 'summary.json']);
     const csv = readFileSync(join(r.out, 'landings.csv'), 'utf8').trimEnd().split('\n');
     expect(csv[0]).toBe(HEADER);
     const summary = JSON.parse(readFileSync(join(r.out, 'summary.json'), 'utf8'));

@@ -16,7 +16,7 @@ import { ROOT } from './cli-helpers.js';
  */
 
 const CHROMIUM = '/usr/bin/chromium';
-const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'mode', 'status', 'steps'] as const;
+const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'impactAngle', 'impactMass', 'mode', 'status', 'steps'] as const;
 const TYPES: Record<string, string> = { '.html': 'text/html', '.js': 'text/javascript', '.mjs': 'text/javascript', '.map': 'application/json' };
 
 /** The bytes the page sent, in an ArrayBuffer of their own. */

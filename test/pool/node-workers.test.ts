@@ -13,7 +13,7 @@ import { ROOT } from './cli-helpers.js';
 
 const { scenario } = loadScenarioFile(join(ROOT, 'scenarios/club-rocket.json'));
 const job = { scenario, samples: 400, seed: 'threads' };
-const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'mode', 'status', 'steps'] as const;
+const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'impactAngle', 'impactMass', 'mode', 'status', 'steps'] as const;
 
 function bytesOf(run: RunResult): Buffer[] {
   return KEYS.map((k) => Buffer.from(run[k].buffer, run[k].byteOffset, run[k].byteLength));

@@ -16,7 +16,7 @@ const job = (samples: number): EngineJob => ({
 function expectEverySampleInPlace(run: Awaited<ReturnType<typeof runInPool>>, samples: number): void {
   const whole = fakeChunk(0, samples);
   expect(run.count).toBe(samples);
-  for (const key of ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'mode', 'status', 'steps'] as const) {
+  for (const key of ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'impactAngle', 'impactMass', 'mode', 'status', 'steps'] as const) {
     expect(Array.from(run[key]), key).toEqual(Array.from(whole[key]));
   }
 }

@@ -44,7 +44,7 @@ describe('sheet.pdf written by strewn run', () => {
     expect(map).toContain('Keep-out zone');
     expect(map).toContain('Wind from');
     const record = pdfText(join(out, 'sheet.pdf'), 2);
-    for (const words of ['Prepared by', 'Reviewed by', 'Decision', 'Scenario hash', 'Indicative', 'not a compliance figure']) expect(record).toContain(words);
+    for (const words of ['Prepared by', 'Reviewed by', 'Decision', 'Scenario hash', 'Not a compliance figure', 'casualty area']) expect(record).toContain(words);
   });
 
   it('is A4 by default (ISO 216: 210 x 297 mm = 595.28 x 841.89 pt)', () => {

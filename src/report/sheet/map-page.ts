@@ -18,10 +18,11 @@ import { northArrow, scaleBar, windIndicator } from './map-furniture.js';
 import { boundsOfPoints, chooseExtent, fitView, intersection, isEmpty, overlaps, union, type Bounds, type MapView } from './map-view.js';
 import { lengthLabel, roundLengthAtMost } from './nice-length.js';
 import { cautionBox, cautionHeight, dateText, MARGIN, PAPER_SIZES, titleBlock, warningsBox, type SheetOptions } from './page-parts.js';
-import { AREA_STYLES, areaStyle, BASEMAP_LABEL, BASEMAP_LABEL_BACKING, BOUNDARY_STROKE, contourLabelColor, contourStyle, INK, INK_SOFT, KEEP_OUT_FILL, KEEP_OUT_STROKE, MINIMUM_DISTANCE_STROKE, modeMarker, RING_STROKE } from './palette.js';
+import { AREA_STYLES, areaStyle, BASEMAP_LABEL, BASEMAP_LABEL_BACKING, BOUNDARY_STROKE, contourLabelColor, contourStyle, INK, INK_SOFT, KEEP_OUT_FILL, KEEP_OUT_STROKE, MINIMUM_DISTANCE_STROKE, modeMarker, RING_STROKE, STANDING_STROKE, STANDING_UNRESOLVED_STROKE } from './palette.js';
+import { standingRing } from '../../risk/standing.js';
 import type { SheetInput } from './sheet-input.js';
 import { WORDS } from '../symbols.js';
-import { grouped, levelText, percent, unitFormatter, type UnitSystem } from '../format-number.js';
+import { grouped, levelText, percent, smallRate, unitFormatter, type UnitSystem } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
 
 /** A short id for a level: 0.9 → '90', 0.995 → '99.5'. */
@@ -56,6 +57,8 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   const minimumDistance = scenario.site.minimumDistance;
   const release = scenario.launch.kind === 'release' && (scenario.launch.east !== 0 || scenario.launch.north !== 0) ? ([scenario.launch.east, scenario.launch.north] as Metres) : null;
   const landings = input.landings;
+  const risk = summary.risk;
+  const standing = risk ? standingRing(risk.standingDistance_m) : null;
 
   // ---- what the map must show
   let core: Bounds = boundsOfPoints([[0, 0]]);
@@ -63,6 +66,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   for (const c of contours) core = union(core, boundsOfPoints(pointsOf(c.polygons)));
   if (minimumDistance) core = union(core, { minX: -minimumDistance, minY: -minimumDistance, maxX: minimumDistance, maxY: minimumDistance });
   if (release) core = union(core, boundsOfPoints([release]));
+  if (standing) core = union(core, boundsOfPoints(standing.map((p) => [p[0], p[1]] as Metres)));
   if (!keepOut && landings) core = union(core, boundsOfPoints(landings.east.map((e, i) => [e, landings.north[i]] as Metres)));
   const reach = Math.max(Math.abs(core.minX), Math.abs(core.maxX), Math.abs(core.minY), Math.abs(core.maxY));
   const extent = chooseExtent({ core, areas: areas.map((a) => a.bounds), reach });
@@ -148,6 +152,16 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   });
   if (keepOut && keepOutFeature) {
     inside.push({ kind: 'path', id: 'keep-out', className: 'keep-out', data: { level: String(keepOutFeature.properties.level), margin: String(keepOutFeature.properties.margin_m) }, d: polygonsPath(view, keepOut), fill: KEEP_OUT_FILL, stroke: KEEP_OUT_STROKE, evenOdd: true });
+  }
+  if (standing && risk) {
+    inside.push({
+      kind: 'path',
+      id: 'standing-distance',
+      className: 'risk standing-distance',
+      data: { level: String(risk.standingLevel), resolved: String(risk.standingResolved) },
+      d: polygonsPath(view, [[standing.map((p) => [p[0], p[1]] as Metres)]]),
+      stroke: risk.standingResolved ? STANDING_STROKE : STANDING_UNRESOLVED_STROKE,
+    });
   }
   if (minimumDistance) {
     const [cx, cy] = view.toPage(0, 0);
@@ -352,6 +366,10 @@ function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: s
   const k = input.keepOut?.features[0]?.properties;
   if (k) entries.push({ swatch: { kind: 'area', fill: KEEP_OUT_FILL, stroke: { ...KEEP_OUT_STROKE, width: 2.6 } }, text: `${WORDS.keepOut}: ${WORDS.keepOutMadeOf(k.parts, levelText(k.level), k.margin_m > 0 ? units.length(k.margin_m) : null)}` });
   levels.forEach((level, i) => entries.push({ swatch: { kind: 'line', stroke: contourStyle(i) }, text: WORDS.contour(levelText(level)) }));
+  const risk = input.summary.risk;
+  if (risk && Object.values(risk.standingDistance_m).some((d) => d > 0)) {
+    entries.push({ swatch: { kind: 'line', stroke: risk.standingResolved ? STANDING_STROKE : STANDING_UNRESOLVED_STROKE }, text: WORDS.standing(smallRate(risk.standingLevel), risk.standingResolved) });
+  }
   if (input.scenario.site.minimumDistance) entries.push({ swatch: { kind: 'line', stroke: MINIMUM_DISTANCE_STROKE }, text: `Minimum distance ${units.length(input.scenario.site.minimumDistance)} (site setting)` });
   entries.push({ swatch: { kind: 'pad' }, text: WORDS.pad });
   if (hasRelease) entries.push({ swatch: { kind: 'release' }, text: 'Release point' });

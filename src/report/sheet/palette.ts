@@ -29,6 +29,8 @@ export const KEEP_OUT_FILL: Fill = SYMBOLS.keepOut.fill;
 export const MINIMUM_DISTANCE_STROKE: Stroke = SYMBOLS.minimumDistance;
 export const BOUNDARY_STROKE: Stroke = SYMBOLS.boundary;
 export const RING_STROKE: Stroke = SYMBOLS.rings;
+export const STANDING_STROKE: Stroke = SYMBOLS.standing;
+export const STANDING_UNRESOLVED_STROKE: Stroke = SYMBOLS.standingUnresolved;
 
 export interface AreaStyle {
   fill: Fill;

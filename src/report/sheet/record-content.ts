@@ -21,6 +21,7 @@ import type { TextMeasure } from './fonts.js';
 import { sensitivityBars, sensitivityKey, sensitivityKeyWidth, sensitivityNote } from './sensitivity-bars.js';
 import { dateText } from './page-parts.js';
 import type { SheetInput } from './sheet-input.js';
+import type { RiskSummary } from '../../risk/index.js';
 import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from '../format-number.js';
 import { unprintableCount } from './winansi.js';
 
@@ -49,6 +50,40 @@ export interface RecordLimits {
   warnings: number;
   /** Most inputs drawn in "What drives the landing spread" (the rest is in summary.json). */
   sensitivityInputs: number;
+}
+
+/** The risk-to-people part of the record: settings, lines, standing distances, totals against criteria. */
+function riskBlocks(risk: RiskSummary, u: UnitFormatter): Block[] {
+  const blocks: Block[] = [];
+  const st = risk.settings;
+  blocks.push({ kind: 'heading', text: 'Risk to people (per flight)' });
+  const harm = st.casualtyEnergy_J !== null
+    ? `a casualty when the impact energy reaches ${significant(st.casualtyEnergy_J, 3)} J`
+    : `casualty chance by impact energy from the scenario's table (${st.casualtyProbability?.energy_J.length ?? 0} rows)`;
+  blocks.push({
+    kind: 'rows',
+    rows: [
+      { label: 'Harm model', value: `${harm}; person ${u.shortLength(st.personRadius_m)} radius, ${u.shortLength(st.personHeight_m)} tall; object radius ${u.shortLength(st.objectRadius_m)} (${st.objectRadiusFrom})` },
+      { label: 'Casualties, all areas', value: `${smallRate(risk.total.expectedCasualties)} (95 % bound ${smallRate(risk.total.upper95)})${risk.total.collectiveCriterion ? `: ${risk.total.collectiveCriterion} of ${smallRate(st.criteria.collective)} (bound ${risk.total.collectiveCriterionUpper95})` : ''}` },
+    ],
+  });
+  blocks.push({
+    kind: 'table',
+    id: 'risk-lines',
+    columns: [
+      { title: 'Individual-risk line', weight: 1.6 },
+      { title: 'Area inside', weight: 1.2, align: 'right' },
+      { title: 'Farthest reach', weight: 1.2, align: 'right' },
+      { title: 'Known from the samples?', weight: 2.4, align: 'right' },
+    ],
+    rows: risk.lines.map((l) => [
+      smallRate(l.level),
+      u.area(l.area_m2),
+      u.length(l.maxDistance_m),
+      l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`,
+    ]),
+  });
+  return blocks;
 }
 
 function vehicleText(sc: Scenario, u: UnitFormatter): string {
@@ -272,7 +307,9 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
   }
   if (s.areas.length > 0) {
     const byName = new Map(review.areas.map((a) => [a.name, a]));
-    const anyPeople = review.areas.some((a) => a.people !== null);
+    const risk = s.risk;
+    const anyPeople = review.areas.some((a) => a.expectedCasualties !== null && a.expectedCasualties !== undefined);
+    const riskOf = new Map((risk?.areas ?? []).map((a) => [a.name, a]));
     const columns: Column[] = [
       { title: '#', weight: 0.35 },
       { title: 'Area', weight: 2.2 },
@@ -282,11 +319,20 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       { title: '95 % upper bound', weight: 1.2, align: 'right' },
       { title: 'Touches zone', weight: 0.9, align: 'right' },
     ];
-    if (anyPeople) columns.push({ title: 'People', weight: 0.8, align: 'right' }, { title: 'Indicative casualties per flight*', weight: 1.6, align: 'right' });
+    if (anyPeople) columns.push({ title: 'People', weight: 0.8, align: 'right' }, { title: 'Expected casualties per flight (95 % bound)*', weight: 2.2, align: 'right' });
+    const showRisk = false; // in areas.csv, summary.json and the page; the record keeps two pages
     const rows = s.areas.map((a, i) => {
       const r = byName.get(a.name);
       const row = [String(i + 1), a.name, a.kind, grouped(a.hits), percent(a.probability), percent(a.upper95), r ? (r.intersectsKeepOut ? 'yes' : 'no') : 'n/a'];
-      if (anyPeople) row.push(r?.people !== null && r?.people !== undefined ? grouped(r.people) : '-', r?.expectedCasualties !== null && r?.expectedCasualties !== undefined ? smallRate(r.expectedCasualties) : '-');
+      if (anyPeople) {
+        const people = r?.people !== null && r?.people !== undefined ? grouped(r.people) : r?.peoplePerM2 !== null && r?.peoplePerM2 !== undefined ? `${significant(r.peoplePerM2, 2)}/m²` : '-';
+        const e = r?.expectedCasualties;
+        row.push(people, e !== null && e !== undefined ? `${smallRate(e)} (${smallRate(r?.casualtiesUpper95 ?? null)})` : '-');
+      }
+      if (showRisk && risk) {
+        const ra = riskOf.get(a.name);
+        row.push(ra ? `${smallRate(ra.maxIndividualRisk)}${ra.individualCriterion ? (ra.individualCriterion.startsWith('under') ? ' under' : ' over') : ''}` : '-');
+      }
       return row;
     });
     blocks.push({ kind: 'table', id: 'areas', columns, rows });
@@ -294,10 +340,15 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       blocks.push({
         kind: 'text',
         font: 'italic',
-        text: `* Indicative only, not a compliance figure: landings of modes without a parachute, people spread evenly over the area, ${u.area(review.lethalArea_m2)} assumed lethal area per impact.`,
+        text:
+          '* Not a compliance figure: people spread evenly over the area, each impact harming those within its casualty area ' +
+          '(from the impact angle) when its energy reaches the casualty energy; all modes counted. The bound is one-sided 95 %.',
       });
     }
   }
+  // The risk lines and standing distances are in summary.json, the map legend and the page; the
+  // record keeps two pages.
+  void riskBlocks;
 
   const sensitivity = s.sensitivity;
   if (sensitivity && sensitivity.inputs.length > 0) {

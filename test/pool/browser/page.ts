@@ -8,7 +8,7 @@ import type { Scenario } from '../../../src/scenario/types.js';
  * calls these functions through the automation bridge.
  */
 
-const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'mode', 'status', 'steps'] as const;
+const KEYS = ['east', 'north', 'apogee', 'flightTime', 'impactSpeed', 'impactAngle', 'impactMass', 'mode', 'status', 'steps'] as const;
 
 function base64(array: ArrayBufferView): string {
   const bytes = new Uint8Array(array.buffer, array.byteOffset, array.byteLength);

@@ -6,6 +6,8 @@ import type { Site, VehicleKind } from '../../../src/scenario/types.js';
 import type { NominalFlight } from '../study/nominal.js';
 import { inUnit, level } from '../units/format.js';
 import type { Unit } from '../units/systems.js';
+import { riskFeatures } from '../../../src/risk/geojson.js';
+import { smallRate } from '../../../src/report/sheet/units.js';
 import { WORDS, modeSymbolIndex } from '../../../src/report/symbols.js';
 
 /**
@@ -149,6 +151,36 @@ export function keepOutFeatures(analysis: AnalysisResult, unit: Unit): { shapes:
     shapes: collection([{ type: 'Feature', geometry: zone.geometry, properties: { level: p.level, area_m2: p.area_m2, maxDistance_m: p.maxDistance_m } }]),
     labels: bottom ? collection([point(bottom, { label: text })]) : EMPTY_COLLECTION,
   };
+}
+
+/**
+ * Individual-risk lines (index = level's rank, highest first, for the line style) and the
+ * standing-distance ring, with a label at the ring's eastern edge and at each line's top.
+ */
+export function riskMapFeatures(analysis: AnalysisResult, pad: { lat: number; lon: number }): { shapes: FeatureCollection; labels: FeatureCollection } {
+  if (!analysis.risk) return { shapes: EMPTY_COLLECTION, labels: EMPTY_COLLECTION };
+  const features = riskFeatures(analysis.risk, pad);
+  const labels: Feature<Point, Props>[] = [];
+  let index = 0;
+  const shapes = features.map((f) => {
+    const p = { ...(f.properties as Props) };
+    if (p.kind === 'individual-risk') {
+      p.index = index++;
+      const top = extremeVertex(f.geometry as MultiPolygon, (a, b) => a[1]! > b[1]!);
+      if (top) labels.push(point(top, { label: `${rateText(p.level as number)}${p.resolved ? '' : ' (not resolved)'}` }));
+    } else {
+      p.resolved = analysis.risk!.standingLine.resolved;
+      const east = extremeVertex(f.geometry as Polygon, (a, b) => a[0]! > b[0]!);
+      if (east) labels.push(point(east, { label: `stand beyond: under ${rateText(p.level as number)}` }));
+    }
+    return { ...f, properties: p } as Feature<Geometry, Props>;
+  });
+  return { shapes: collection(shapes), labels: collection(labels) };
+}
+
+/** A chance per flight as the sheet writes it ('1.0e-6', '0.012'). */
+export function rateText(x: number): string {
+  return smallRate(x);
 }
 
 /** One point per landed sample; `i` indexes the landing set, where the hover finds the figures. */

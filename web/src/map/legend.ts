@@ -3,7 +3,8 @@ import { markerOutline, type PathCommand } from '../../../src/report/sheet/displ
 import { SYMBOLS, WORDS } from '../../../src/report/symbols.js';
 import { el, replaceChildren } from '../panels/dom.js';
 import { level } from '../units/format.js';
-import { AREA_KINDS, BOUNDARY, KEEP_OUT, KEEP_OUT_FILL, RINGS, TRACK, areaStyle, contourStyle, modeStyle, type LineStyle } from './palette.js';
+import { AREA_KINDS, BOUNDARY, KEEP_OUT, KEEP_OUT_FILL, RINGS, STANDING, TRACK, areaStyle, contourStyle, modeStyle, riskStyle, type LineStyle } from './palette.js';
+import { smallRate } from '../../../src/report/sheet/units.js';
 
 const SVG = 'http://www.w3.org/2000/svg';
 
@@ -80,6 +81,8 @@ export interface LegendContent {
   areaKinds: string[];
   hasTrack: boolean;
   hasBoundary: boolean;
+  /** Individual-risk lines (highest first) and the criterion of the standing ring. */
+  risk?: { levels: { level: number; resolved: boolean }[]; standingLevel: number; standingResolved: boolean } | null;
 }
 
 /** What the symbols on the map mean, in the sheet's words; mode names are the scenario's text. */
@@ -120,6 +123,10 @@ export class LegendControl implements IControl {
       if (!content.areaKinds.includes(kind)) continue;
       const a = areaStyle(kind);
       items.push(item(areaSwatch(a.fill, a.opacity, a.line), a.label, `area-${kind}`));
+    }
+    if (content.risk) {
+      content.risk.levels.forEach((l, i) => items.push(item(lineSwatch(riskStyle(i)), WORDS.riskLine(smallRate(l.level), l.resolved), 'risk-line')));
+      items.push(item(lineSwatch(STANDING), WORDS.standing(smallRate(content.risk.standingLevel), content.risk.standingResolved), 'standing'));
     }
     content.modes.forEach((name, m) => items.push(item(markerSwatch(m), WORDS.landings(name), 'landings')));
     replaceChildren(this.list, ...items);

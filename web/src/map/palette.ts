@@ -1,4 +1,4 @@
-import { SCREEN_MARKER_PX_PER_PT, SCREEN_PX_PER_PT, SYMBOLS, areaSymbol, contourSymbol, modeSymbol, type LineSymbol, type MarkerSymbolStyle } from '../../../src/report/symbols.js';
+import { SCREEN_MARKER_PX_PER_PT, SCREEN_PX_PER_PT, SYMBOLS, areaSymbol, contourSymbol, modeSymbol, riskLineSymbol, type LineSymbol, type MarkerSymbolStyle } from '../../../src/report/symbols.js';
 
 /**
  * The map's colours and line styles: the symbol set shared with the review sheet
@@ -27,6 +27,11 @@ export function contourStyle(index: number): LineStyle {
 }
 
 export const CONTOUR_LEVEL_STYLES = SYMBOLS.contours.length;
+/** Individual-risk lines (highest level first) and the standing ring, from the shared set. */
+export function riskStyle(index: number): LineStyle {
+  return screenLine(riskLineSymbol(index));
+}
+export const STANDING: LineStyle = screenLine(SYMBOLS.standing);
 
 export const KEEP_OUT: LineStyle = screenLine(SYMBOLS.keepOut.line);
 export const KEEP_OUT_FILL = SYMBOLS.keepOut.fill;

@@ -1,7 +1,7 @@
 import type { ExpressionSpecification, LayerSpecification, StyleSpecification, SymbolLayerSpecification } from 'maplibre-gl';
 import fontLatin from '@fontsource/noto-sans/files/noto-sans-latin-400-normal.woff2?url';
 import fontLatinExt from '@fontsource/noto-sans/files/noto-sans-latin-ext-400-normal.woff2?url';
-import { AREA_KINDS, BASEMAP, BOUNDARY, CONTOUR_LEVEL_STYLES, KEEP_OUT, KEEP_OUT_FILL, MODE_STYLE_COUNT, RINGS, SYMBOLS, TRACK, areaStyle, contourStyle, modeStyle } from './palette.js';
+import { AREA_KINDS, BASEMAP, BOUNDARY, CONTOUR_LEVEL_STYLES, KEEP_OUT, KEEP_OUT_FILL, MODE_STYLE_COUNT, RINGS, SYMBOLS, STANDING, TRACK, areaStyle, contourStyle, modeStyle, riskStyle } from './palette.js';
 import { markerImageId } from './markers.js';
 import { contourLabelSymbolColor } from '../../../src/report/symbols.js';
 
@@ -28,6 +28,8 @@ export const SOURCES = {
   track: 'track',
   trackLabels: 'track-labels',
   landings: 'landings',
+  risk: 'risk',
+  riskLabels: 'risk-labels',
 } as const;
 
 export type SourceId = (typeof SOURCES)[keyof typeof SOURCES];
@@ -40,6 +42,7 @@ export const LAYER_GROUPS = {
   areas: ['area-fill', 'area-line', 'area-label'],
   track: ['track-casing', 'track-line', 'track-label'],
   rings: ['ring-line', 'ring-label'],
+  risk: ['risk-line', 'risk-standing', 'risk-label'],
 } as const;
 
 export type LayerGroup = keyof typeof LAYER_GROUPS;
@@ -108,6 +111,20 @@ function contourLines(): LayerSpecification[] {
   });
 }
 
+function riskLines(): LayerSpecification[] {
+  return [0, 1, 2].map((i) => {
+    const style = riskStyle(i);
+    return {
+      id: i === 0 ? 'risk-line' : `risk-line-${i}`,
+      type: 'line',
+      source: SOURCES.risk,
+      filter: ['all', ['==', ['get', 'kind'], 'individual-risk'], ['==', ['get', 'index'], i]],
+      layout: { 'line-join': 'round' },
+      paint: { 'line-color': style.color, 'line-width': style.width, 'line-dasharray': style.dash, 'line-opacity': ['case', ['get', 'resolved'], 1, 0.4] },
+    } as LayerSpecification;
+  });
+}
+
 export function offlineStyle(): StyleSpecification {
   const sources = Object.fromEntries(Object.values(SOURCES).map((id) => [id, { type: 'geojson', data: EMPTY }]));
   const layers: LayerSpecification[] = [
@@ -126,6 +143,8 @@ export function offlineStyle(): StyleSpecification {
     ...contourLines(),
     { id: 'keepout-fill', type: 'fill', source: SOURCES.keepOut, paint: { 'fill-color': KEEP_OUT_FILL.color, 'fill-opacity': KEEP_OUT_FILL.opacity ?? 1 } },
     { id: 'keepout-line', type: 'line', source: SOURCES.keepOut, layout: { 'line-join': 'round' }, paint: { 'line-color': KEEP_OUT.color, 'line-width': KEEP_OUT.width, ...(KEEP_OUT.dash.length ? { 'line-dasharray': KEEP_OUT.dash } : {}) } },
+    ...riskLines(),
+    { id: 'risk-standing', type: 'line', source: SOURCES.risk, filter: ['==', ['get', 'kind'], 'standing-distance'], layout: { 'line-join': 'round' }, paint: { 'line-color': STANDING.color, 'line-width': STANDING.width, 'line-dasharray': STANDING.dash, 'line-opacity': ['case', ['get', 'resolved'], 1, 0.45] } },
     { id: 'track-casing', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': '#FFFFFF', 'line-width': TRACK.width + 2.4 } },
     { id: 'track-line', type: 'line', source: SOURCES.track, layout: { 'line-cap': 'round', 'line-join': 'round' }, paint: { 'line-color': TRACK.color, 'line-width': TRACK.width } },
     {
@@ -150,6 +169,7 @@ export function offlineStyle(): StyleSpecification {
       layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': false, 'text-padding': 4, 'symbol-sort-key': ['-', 100, ['get', 'index']] }),
       paint: { 'text-color': byLevelIndex((i) => contourLabelSymbolColor(i)), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
     },
+    { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-anchor': 'left', 'text-offset': [0.4, 0] }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ];
   return {
@@ -171,5 +191,6 @@ export function layersOf(group: LayerGroup): string[] {
   const ids: string[] = [...LAYER_GROUPS[group]];
   if (group === 'contours') for (let i = 1; i < CONTOUR_LEVEL_STYLES; i++) ids.push(`contour-line-${i}`);
   if (group === 'track') ids.push('track-apogee');
+  if (group === 'risk') ids.push('risk-line-1', 'risk-line-2');
   return ids;
 }

@@ -22,6 +22,7 @@ import {
   boundaryFeatures,
   boundsOf,
   contourFeatures,
+  riskMapFeatures,
   keepOutFeatures,
   landingFeatures,
   ringFeatures,
@@ -168,8 +169,11 @@ export class MapView {
         const zone = study.analysis ? keepOutFeatures(study.analysis, units.length) : { shapes: EMPTY_COLLECTION, labels: EMPTY_COLLECTION };
         this.setData(SOURCES.keepOut, zone.shapes);
         this.setData(SOURCES.keepOutLabel, zone.labels);
+        const risk = study.analysis ? riskMapFeatures(study.analysis, study.accepted.scenario.site.pad) : { shapes: EMPTY_COLLECTION, labels: EMPTY_COLLECTION };
+        this.setData(SOURCES.risk, risk.shapes);
+        this.setData(SOURCES.riskLabels, risk.labels);
       } else {
-        for (const id of [SOURCES.landings, SOURCES.contours, SOURCES.contourLabels, SOURCES.keepOut, SOURCES.keepOutLabel]) this.setData(id, EMPTY_COLLECTION);
+        for (const id of [SOURCES.landings, SOURCES.contours, SOURCES.contourLabels, SOURCES.keepOut, SOURCES.keepOutLabel, SOURCES.risk, SOURCES.riskLabels]) this.setData(id, EMPTY_COLLECTION);
       }
     }
     // Results from an earlier version of the scenario stay visible, but faded.
@@ -190,6 +194,7 @@ export class MapView {
       areaKinds: [...new Set(site.areas.map((a) => a.kind as string))],
       hasTrack: nominal.track.length > 1,
       hasBoundary: site.boundary !== undefined,
+      risk: study?.analysis?.risk ? { levels: study.analysis.risk.lines.map((l) => ({ level: l.level, resolved: l.resolved })), standingLevel: study.analysis.risk.standingLevel, standingResolved: study.analysis.risk.standingLine.resolved } : null,
     });
 
     if (options.fit === 'site') this.fitSite();

@@ -7,6 +7,8 @@ import { el, replaceChildren } from './dom.js';
 import { inputWords } from '../../../src/report/sheet/input-names.js';
 import type { InputSensitivity } from '../../../src/sensitivity/study.js';
 import { svgFigure } from './svg-figure.js';
+import type { RiskSummary } from '../../../src/risk/index.js';
+import { smallRate } from '../../../src/report/sheet/units.js';
 
 /**
  * The "Findings" tab: what the last run found, in the chosen units. Every figure comes from the
@@ -107,6 +109,7 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
       ),
     );
   }
+  if (s.risk) out.push(...riskFindings(s.risk, u, area));
   if (s.sensitivity && s.sensitivity.inputs.length > 0) {
     const sensitivity = s.sensitivity;
     const data = table(
@@ -128,6 +131,46 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
       ),
     );
   }
+  return out;
+}
+
+/** Risk to people: per flight, each figure against the user's criterion where one is set. */
+function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => string): HTMLElement[] {
+  const out: HTMLElement[] = [];
+  const st = r.settings;
+  const harm = st.casualtyEnergy_J !== null ? `a casualty when the impact energy reaches ${st.casualtyEnergy_J} J` : 'casualty chance by impact energy from your table';
+  out.push(el('h3', { class: 'findings-subhead', text: 'Risk to people (per flight)' }));
+  const figures = el('dl', { class: 'figures', data: { finding: 'risk' } });
+  const crit = r.total.collectiveCriterion ? `; ${r.total.collectiveCriterion} (${smallRate(st.criteria.collective)}), bound ${r.total.collectiveCriterionUpper95}` : '';
+  figures.appendChild(figure('risk-total', 'Expected casualties, all marked areas', smallRate(r.total.expectedCasualties), `(95 % upper bound ${smallRate(r.total.upper95)})${crit}`));
+  figures.appendChild(figure('risk-model', 'Harm model', harm, `object radius ${inUnit(st.objectRadius_m, u.length, 3)} (${st.objectRadiusFrom}); person ${inUnit(st.personRadius_m, u.length, 2)} radius, ${inUnit(st.personHeight_m, u.length, 2)} tall`));
+  out.push(figures);
+  const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
+  const standing = table(`Individual risk stays under ${smallRate(r.standingLevel)} beyond${r.standingResolved ? '' : ' (line not resolved by the samples)'}`, 'standing', ['', ...names], [['distance', ...names.map((n) => inUnit(r.standingDistance_m[n], u.length))]]);
+  standing.classList.add('octants');
+  out.push(standing);
+  out.push(
+    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Known from the samples?'], r.lines.map((l) => [smallRate(l.level), area(l.area_m2), inUnit(l.maxDistance_m, u.length), l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`])),
+  );
+  if (r.areas.length > 0) {
+    out.push(
+      table('Marked areas: expected casualties and largest individual risk', 'risk-areas', ['Area', 'Expected casualties', '95 % upper bound', 'Largest individual risk'], r.areas.map((a) => [
+        a.name,
+        a.expectedCasualties === null ? 'no people given' : smallRate(a.expectedCasualties),
+        a.upper95 === null ? '–' : smallRate(a.upper95),
+        `${smallRate(a.maxIndividualRisk)}${a.individualCriterion ? ` (${a.individualCriterion})` : ''}`,
+      ])),
+    );
+  }
+  out.push(
+    table('Impacts by mode', 'risk-modes', ['Mode', 'Speed, median (95 %)', 'Energy, median (95 %)', 'Expected casualties'], r.modes.map((m) => [
+      m.name,
+      `${inUnit(m.impactSpeed_m_s.p50, u.speed, 1)} (${inUnit(m.impactSpeed_m_s.p95, u.speed, 1)})`,
+      `${m.impactEnergy_J.p50.toPrecision(3)} J (${m.impactEnergy_J.p95.toPrecision(3)} J)`,
+      smallRate(m.expectedCasualties),
+    ])),
+  );
+  out.push(el('p', { class: 'note', text: 'Not a compliance figure: people spread evenly over each area, all modes counted; "under / over your criterion" compares with the criteria you set, it is not a verdict on the event.' }));
   return out;
 }
 

@@ -14,6 +14,7 @@ const LAYERS: [LayerGroup, string][] = [
   ['areas', 'Marked areas'],
   ['track', 'Nominal ground track'],
   ['rings', 'Distance rings'],
+  ['risk', 'Individual risk'],
 ];
 
 export function settingsPanel(actions: Actions, mapAvailable: boolean, basemapErrors: (listener: (message: string) => void) => void): HTMLElement {

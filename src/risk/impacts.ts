@@ -1,0 +1,45 @@
+/**
+ * What each landing means for a person it could strike: casualty area, casualty chance and the
+ * risk weight w_i A_c,i P_i (probability per flight the landing stands for × casualty area ×
+ * casualty chance), the weight of the individual-risk density.
+ *
+ * @example
+ *   const harm = impactHarm(set, riskSettings(scenario));
+ *   harm.weight[i]  // m² per flight
+ */
+import type { LandingSet } from '../analysis/types.js';
+import { casualtyArea } from './casualty-area.js';
+import { casualtyChance } from './harm.js';
+import type { RiskSettings } from './settings.js';
+
+export interface ImpactHarm {
+  casualtyArea: Float64Array;
+  chance: Float64Array;
+  /** A_c × P per landing, m² (what one landing inside an area exposes). */
+  exposure: Float64Array;
+  /** Normalised probability per flight × A_c × P, m². */
+  weight: Float64Array;
+}
+
+export function impactHarm(set: LandingSet, settings: RiskSettings): ImpactHarm {
+  const n = set.east.length;
+  const energy = set.impactEnergy;
+  if (energy === undefined) throw new Error('the risk model needs the impact energy of every landing');
+  let total = 0;
+  for (let i = 0; i < n; i++) total += set.weight[i];
+  const out: ImpactHarm = {
+    casualtyArea: new Float64Array(n),
+    chance: new Float64Array(n),
+    exposure: new Float64Array(n),
+    weight: new Float64Array(n),
+  };
+  for (let i = 0; i < n; i++) {
+    // No recorded angle: vertical, the smallest casualty area (scenario-format.md says so).
+    const angle = set.impactAngle && Number.isFinite(set.impactAngle[i]) ? set.impactAngle[i] : 90;
+    out.casualtyArea[i] = casualtyArea(settings.personRadius, settings.objectRadius, settings.personHeight, angle);
+    out.chance[i] = casualtyChance(energy[i], settings);
+    out.exposure[i] = out.casualtyArea[i] * out.chance[i];
+    out.weight[i] = (set.weight[i] / total) * out.exposure[i];
+  }
+  return out;
+}
