@@ -66,11 +66,16 @@ describe('event totals', () => {
   }, 20_000);
 
   it('individual risk integrates to the expected exposure: Σ over the grid ≈ flights × Σ w·A (kernel density integrates to 1)', async () => {
-    const t = await eventOf([{ flights: 5 }]);
+    const plan = parseEventFile({ strewnEvent: 1, name: 'test event', site, items: [{ name: 'item 0', scenario: dropped, flights: 5 }] });
+    const outcomes = await runEventItems(plan, execute);
+    const t = combineEvent(plan, outcomes);
     const g = t.individualRisk.grid!;
     let integral = 0;
     for (let k = 0; k < g.values.length; k++) integral += g.values[k] * g.dx * g.dy;
-    // Every landing without a parachute carries lethal area 1 m² (areas.ts), weights sum to 1.
-    expect(integral).toBeCloseTo(5 * 1, 1);
+    // Each landing exposes probability × casualty area × casualty chance (src/risk); a kernel
+    // density integrates to 1, so the grid integrates to flights × Σ exposure.
+    const exposure = outcomes[0]!.harm!.exposure.reduce((a, b) => a + b, 0);
+    expect(exposure).toBeGreaterThan(0.1);
+    expect(integral / (5 * exposure)).toBeCloseTo(1, 2);
   }, 20_000);
 });
