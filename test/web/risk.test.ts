@@ -13,7 +13,7 @@ describe('workspace: risk to people', () => {
     const kinds = await page.evaluate(() => window.__strewn!.sourceData('risk').features.map((f) => f.properties!.kind as string));
     expect(kinds.filter((k) => k === 'individual-risk')).toHaveLength(3);
     expect(kinds).toContain('standing-distance');
-    expect(await page.locator('[data-test="legend"]').innerText()).toMatch(/Individual risk per flight/);
+    expect(await page.locator('[data-test="legend"]').innerText()).toMatch(/Individual risk \S+ per flight or more/);
     await mapIdle(page);
     await page.screenshot({ path: join(session.shots, 'risk-map.png') });
     await page.locator('[data-tab="findings"]').click();
