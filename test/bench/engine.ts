@@ -113,7 +113,7 @@ export function measureEngine(name: string, scenario: Scenario, seconds = 3): En
 
 export function demoScenarios(folder: string): { name: string; scenario: Scenario }[] {
   return readdirSync(folder)
-    .filter((f) => f.endsWith('.json'))
+    .filter((f) => f.endsWith('.json') && !f.endsWith('.event.json'))
     .sort()
     .map((f) => ({ name: f, scenario: loadScenarioFile(join(folder, f)).scenario }));
 }
