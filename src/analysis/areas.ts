@@ -17,14 +17,17 @@ import type { LocalFrame } from './geodesy.js';
 import { createPolygonIndex } from './pointInPolygon.js';
 import { polygonsArea, polygonsToEastNorth } from './projectGeometry.js';
 import type { KeepOutFeature, LandingSet } from './types.js';
+import { chanceOfAny, hasParts, perFlightWeight } from './parts.js';
 
 export interface AreaResult {
   name: string;
   kind: Area['kind'];
   /** Landed samples inside the area. */
   hits: number;
-  /** Weighted probability per flight of landing inside. */
+  /** Weighted probability per flight of landing inside (with pieces: that at least one piece lands inside). */
   probability: number;
+  /** Expected landings inside per flight (pieces each counted); present when the landings have parts. */
+  expectedLandings?: number;
   /** One-sided 95 % upper bound on `probability` (Clopper–Pearson on the effective sample size). */
   upper95: number;
   /** The area overlaps the keep-out zone. */
@@ -56,19 +59,21 @@ export interface AreaInput {
 
 export function assessAreas(input: AreaInput): AreaResult[] {
   const { set, frame } = input;
-  let total = 0;
-  for (let i = 0; i < set.weight.length; i++) total += set.weight[i];
+  const total = perFlightWeight(set);
+  const parts = hasParts(set);
   return input.areas.map((area) => {
     const metres = polygonsToEastNorth(frame, area.geometry);
     const index = createPolygonIndex(metres);
     let hits = 0;
     let weight = 0;
+    const inside = new Uint8Array(set.east.length);
     for (let i = 0; i < set.east.length; i++) {
       if (!index.contains(set.east[i], set.north[i])) continue;
       hits++;
+      inside[i] = 1;
       weight += set.weight[i];
     }
-    const probability = weight / total;
+    const probability = parts ? chanceOfAny(set, (i) => inside[i] === 1, total) : weight / total;
     const areaM2 = polygonsArea(metres);
     const result: AreaResult = {
       name: area.name,
@@ -79,6 +84,7 @@ export function assessAreas(input: AreaInput): AreaResult[] {
       intersectsKeepOut: booleanIntersects(area.geometry, input.keepOut),
       area_m2: areaM2,
     };
+    if (parts) result.expectedLandings = weight / total;
     if (area.people !== undefined) result.people = area.people;
     return result;
   });

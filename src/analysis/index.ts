@@ -25,6 +25,7 @@ import { countInside, createPolygonIndex } from './pointInPolygon.js';
 import { polygonsToEastNorth } from './projectGeometry.js';
 import type { ContourFeature, ContourProperties, FeatureCollection, KeepOutFeature, LandingSet, MultiPolygon } from './types.js';
 import { effectiveSampleSize } from './weightedStats.js';
+import { partFigures, sampleWeightsOf, type PartFigures } from './parts.js';
 import { assessRisk, type RiskResult } from '../risk/index.js';
 import type { RiskSettings } from '../risk/settings.js';
 
@@ -76,6 +77,8 @@ export interface AnalysisResult {
   ellipses: ModeEllipse[];
   /** Risk to people (absent without risk settings or without impact energies). */
   risk?: RiskResult;
+  /** Landings per part (whole object, fragment classes), when the landings have parts. */
+  parts?: PartFigures[];
   warnings: string[];
   /** Milliseconds per stage. */
   timing_ms: Record<string, number>;
@@ -125,7 +128,8 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
   const levels = checkLevels(run.levels);
   const frame = createLocalFrame(site.pad);
   const warnings: string[] = [];
-  const effectiveSamples = effectiveSampleSize(set.weight);
+  // Over flights: the pieces of one flight are not independent samples (parts.ts).
+  const effectiveSamples = effectiveSampleSize(sampleWeightsOf(set));
 
   const bandwidth = scottBandwidth(set.east, set.north, set.weight, options.bandwidth);
   if (bandwidth.packed) {
@@ -230,6 +234,7 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
     // The risk warnings stay in summary.json's risk.warnings, the terminal and the page (the record keeps two pages).
     lap('risk');
   }
+  const parts = partFigures(set);
   timing.total = performance.now() - started;
 
   return {
@@ -255,6 +260,7 @@ export function analyze(set: LandingSet, site: Site, run: RunSettings, options: 
     areas,
     ellipses,
     ...(risk ? { risk } : {}),
+    ...(parts ? { parts } : {}),
     warnings,
     timing_ms: timing,
   };

@@ -35,6 +35,11 @@ export const MIN_LANDINGS = 10;
  *
  * Each mode's probability is its share of the total weight.
  *
+ * A `part` column (as `strewn run` writes: 'whole', or the fragment class of a piece) marks files
+ * where one sample may have many landing rows, each with its sample's weight: then the weights
+ * are scaled so that the samples (each counted once, by the `sample` column) add up to one flight,
+ * and the rows of a mode add up to its expected landings per flight, as in the run (parts.ts).
+ *
  * @example
  * readLandingsCsv('east_m,north_m\n12.5,-40\n…', frame)
  */
@@ -70,6 +75,7 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   const speedCol = col('impact_speed_m_s');
   const massCol = col('mass_kg');
   const angleCol = col('impact_angle_deg');
+  const partCol = col('part');
   const withEnergy = energyCol >= 0 || (speedCol >= 0 && massCol >= 0);
   const body = nonEmpty.slice(1);
   if (body.length < MIN_LANDINGS) {
@@ -87,6 +93,8 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   const impactSpeed = speedCol >= 0 ? new Float64Array(n) : undefined;
   const impactAngle = withEnergy && angleCol >= 0 ? new Float64Array(n) : undefined;
   const modeNames: string[] = [];
+  const part = partCol >= 0 ? new Uint8Array(n) : undefined;
+  const partNames: string[] = [];
   const number = (row: string[], c: number, what: string, line: number): number => {
     const cell = (row[c] ?? '').trim();
     // Plain decimals only: Number() would also read '0x10' as 16, '' as 0 and '1e400' as Infinity.
@@ -122,6 +130,15 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
       m = modeNames.push(name) - 1;
     }
     set.mode[i] = m;
+    if (part) {
+      const partName = restoreFormulaText((row[partCol] ?? '').trim()) || 'whole';
+      let k = partNames.indexOf(partName);
+      if (k < 0) {
+        if (partNames.length === 255) throw new LandingsInputError(line, 'more than 255 different parts');
+        k = partNames.push(partName) - 1;
+      }
+      part[i] = k;
+    }
     if (impactSpeed) {
       impactSpeed[i] = number(row, speedCol, 'impact_speed_m_s', line);
       if (impactSpeed[i] < 0) throw new LandingsInputError(line, `impact_speed_m_s is ${impactSpeed[i]}; expected 0 or more`);
@@ -154,10 +171,17 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   let largest = 0;
   for (let i = 0; i < n; i++) largest = Math.max(largest, set.weight[i]);
   for (let i = 0; i < n; i++) set.weight[i] /= largest;
-  const total = set.weight.reduce((a, b) => a + b, 0);
+  // With parts, a sample's weight counts once for the flight however many rows it has.
+  const once = new Uint8Array(n);
+  if (part) {
+    const seen = new Set<number>();
+    for (let i = 0; i < n; i++) if (!seen.has(set.sample[i])) { seen.add(set.sample[i]); once[i] = 1; }
+  } else once.fill(1);
+  let total = 0;
+  for (let i = 0; i < n; i++) if (once[i] === 1) total += set.weight[i];
   const modeProbability = modeNames.map((_, m) => {
     let s = 0;
-    for (let i = 0; i < n; i++) if (set.mode[i] === m) s += set.weight[i];
+    for (let i = 0; i < n; i++) if (set.mode[i] === m && once[i] === 1) s += set.weight[i];
     return s / total;
   });
   // Weights as probabilities, so every figure reads as a share of flights.
@@ -169,5 +193,6 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
     ...(impactSpeed ? { impactSpeed } : {}),
     ...(impactEnergy ? { impactEnergy } : {}),
     ...(impactAngle ? { impactAngle } : {}),
+    ...(part ? { part, partNames, partRadius: partNames.map(() => NaN) } : {}),
   };
 }

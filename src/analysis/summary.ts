@@ -6,6 +6,7 @@
  *   // { contours: [{level, area_m2, maxDistance_m}], keepOut: {...}, areas: [{name, kind, hits, probability, upper95}] }
  */
 import type { AnalysisResult } from './index.js';
+import type { PartFigures } from './parts.js';
 
 export interface SummaryParts {
   contours: { level: number; area_m2: number; maxDistance_m: number; samplesInBand: number }[];
@@ -17,7 +18,10 @@ export interface SummaryParts {
     outsideShare: number;
     outsideUpper95: number;
   };
-  areas: { name: string; kind: string; hits: number; probability: number; upper95: number }[];
+  /** With parts, `probability` is the chance that at least one piece lands inside, `expectedLandings` the pieces per flight. */
+  areas: { name: string; kind: string; hits: number; probability: number; upper95: number; expectedLandings?: number }[];
+  /** Per part (whole object and each fragment class), when the object may break up. */
+  parts?: PartFigures[];
   warnings: string[];
 }
 
@@ -45,7 +49,9 @@ export function summaryParts(result: AnalysisResult): SummaryParts {
       hits: a.hits,
       probability: a.probability,
       upper95: a.upper95,
+      ...(a.expectedLandings !== undefined ? { expectedLandings: a.expectedLandings } : {}),
     })),
+    ...(result.parts ? { parts: result.parts } : {}),
     warnings: result.warnings,
   };
 }

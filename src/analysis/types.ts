@@ -44,6 +44,15 @@ export interface LandingSet {
   impactAngle?: Float64Array;
   /** Impact energy ½ m v² of the mass that lands, J (the risk model needs it). */
   impactEnergy?: Float64Array;
+  /**
+   * Which part of the object each landing is (index into `partNames`): absent when every sample
+   * lands whole, one landing each. With parts, a sample's rows share its weight (see parts.ts).
+   */
+  part?: Uint8Array;
+  /** Name of each part: 'whole' for an object that lands in one piece, else the fragment class. */
+  partNames?: string[];
+  /** Casualty radius of each part, m (NaN: the risk settings' object radius). */
+  partRadius?: number[];
 }
 
 export type AreaGeometry = Polygon | MultiPolygon;

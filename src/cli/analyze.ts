@@ -151,6 +151,9 @@ export async function analyzeCommand(args: string[]): Promise<number> {
   let set;
   try {
     set = readLandingsCsv(text, frame);
+    // A fragment's casualty radius comes from the scenario's breakup, by part name.
+    const pieces = scenario?.breakup?.fragments;
+    if (set.partNames && pieces) set.partRadius = set.partNames.map((name) => pieces.find((f) => f.name === name)?.radius ?? NaN);
   } catch (error) {
     if (error instanceof LandingsInputError) throw new UsageError(`${path}: ${error.message}`);
     throw error;

@@ -1,6 +1,7 @@
 import { planModes } from '../dispersion/modes.js';
 import { placeColumns } from '../dispersion/columns.js';
 import { allocateChunk } from '../dispersion/runner.js';
+import { piecesPerSample } from '../dispersion/breakup.js';
 import { orderShards, ShardSetError, type ShardPiece } from '../dispersion/shards.js';
 import { formatRunSummary } from '../report/run-text.js';
 import { parseCommandArgs } from './args.js';
@@ -64,7 +65,7 @@ export async function mergeCommand(args: string[]): Promise<number> {
   const interrupt = interruptSignal();
   try {
     // One shard's columns at a time are read and copied into the study's columns.
-    const all = allocateChunk(0, first.samples);
+    const all = allocateChunk(0, first.samples, piecesPerSample(scenario));
     for (const { value } of ordered) {
       interrupt.signal.throwIfAborted();
       placeColumns(all, readShardColumns(value.folder, value.manifest));

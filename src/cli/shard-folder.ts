@@ -168,8 +168,9 @@ export function readShardColumns(folder: string, manifest: ShardManifest): Chunk
   const chunk: Record<string, unknown> = { start: manifest.first, count: manifest.count };
   for (const c of manifest.columns) {
     const Type = COLUMN_TYPES[c.type];
-    if (c.byteLength !== manifest.count * Type.BYTES_PER_ELEMENT) throw bad(`column ${c.name} has ${c.byteLength} bytes for ${manifest.count} samples`);
-    chunk[c.name] = new Type(bytes.buffer, c.byteOffset, manifest.count) as Column;
+    // A sample's own columns hold one entry per sample, a breakup's piece columns a whole number.
+    if (c.byteLength % (manifest.count * Type.BYTES_PER_ELEMENT) !== 0) throw bad(`column ${c.name} has ${c.byteLength} bytes for ${manifest.count} samples`);
+    chunk[c.name] = new Type(bytes.buffer, c.byteOffset, c.byteLength / Type.BYTES_PER_ELEMENT) as Column;
   }
   return chunk as unknown as ChunkResult;
 }

@@ -36,6 +36,14 @@ export function resultColumns(chunk: ChunkResult): [string, Column][] {
   return out;
 }
 
+/**
+ * Entries per sample of a column: 1 for a sample's own figures, the pieces per sample for the
+ * piece columns of a breakup (0 when there is none), so a column holds `count × stride` entries.
+ */
+export function columnStride(column: Column, count: number): number {
+  return count > 0 ? column.length / count : 0;
+}
+
 /** Copies every column of `part` into `whole` at the sample offset `part.start - whole.start`. */
 export function placeColumns(whole: ChunkResult, part: ChunkResult): void {
   const offset = part.start - whole.start;
@@ -46,6 +54,10 @@ export function placeColumns(whole: ChunkResult, part: ChunkResult): void {
   for (const [name, column] of resultColumns(part)) {
     const into = target[name];
     if (!into || !ArrayBuffer.isView(into)) throw new Error(`internal error: result column '${name}' is unknown here`);
-    into.set(column as never, offset);
+    const stride = columnStride(column, part.count);
+    if (part.count > 0 && into.length !== whole.count * stride) {
+      throw new Error(`internal error: result column '${name}' has ${stride} entries per sample here and ${into.length / whole.count} in the whole`);
+    }
+    into.set(column as never, offset * stride);
   }
 }

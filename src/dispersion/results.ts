@@ -21,7 +21,9 @@ export function assembleChunks(
   seed: string,
   range: readonly [number, number] = [0, samples],
 ): RunResult {
-  const all = allocateChunk(range[0], range[1]);
+  // Pieces per sample, as the chunks were flown (0 without a breakup).
+  const pieces = chunks.length > 0 && chunks[0].count > 0 ? chunks[0].pieceStatus.length / chunks[0].count : 0;
+  const all = allocateChunk(range[0], range[1], pieces);
   const filled = new Uint8Array(range[1]);
   for (const c of chunks) {
     placeColumns(all, c);

@@ -4,6 +4,7 @@ import { emptyInputs, type FlightInputs } from '../flight/inputs.js';
 import { SampleStream } from './random.js';
 import { planModes, modeOfSample, type ModePlan } from './modes.js';
 import { InputDrawer } from './draw.js';
+import { BreakupFlyer, piecesPerSample } from './breakup.js';
 
 /** Landing results of a contiguous range of samples, as typed arrays indexed from `start`. */
 export interface ChunkResult {
@@ -23,9 +24,21 @@ export interface ChunkResult {
   status: Uint8Array;
   /** Integrator steps per flight. */
   steps: Uint32Array;
+  /** 1 when the object broke up (scenario `breakup`): its landings are its pieces'. */
+  broken: Uint8Array;
+  // Per piece, `pieces` entries per sample (sample-major; none without a breakup): see breakup.ts.
+  pieceEast: Float64Array;
+  pieceNorth: Float64Array;
+  pieceFlightTime: Float64Array;
+  pieceImpactSpeed: Float64Array;
+  pieceImpactAngle: Float64Array;
+  /** FlightStatus of each piece, or PIECE_NOT_FLOWN (255) when its sample did not break up. */
+  pieceStatus: Uint8Array;
 }
 
-export function allocateChunk(start: number, count: number): ChunkResult {
+/** Columns for samples [start, start + count); `pieces` per sample for the piece columns. */
+export function allocateChunk(start: number, count: number, pieces = 0): ChunkResult {
+  const p = count * pieces;
   return {
     start,
     count,
@@ -39,6 +52,13 @@ export function allocateChunk(start: number, count: number): ChunkResult {
     mode: new Uint8Array(count),
     status: new Uint8Array(count),
     steps: new Uint32Array(count),
+    broken: new Uint8Array(count),
+    pieceEast: new Float64Array(p),
+    pieceNorth: new Float64Array(p),
+    pieceFlightTime: new Float64Array(p),
+    pieceImpactSpeed: new Float64Array(p),
+    pieceImpactAngle: new Float64Array(p),
+    pieceStatus: new Uint8Array(p),
   };
 }
 
@@ -57,6 +77,9 @@ export class DispersionRunner {
   private readonly inputs: FlightInputs;
   private readonly result: FlightResult = emptyResult();
   private readonly normal: () => number;
+  /** Flies the pieces of a sample that breaks up (null without a breakup: nothing more is drawn). */
+  private readonly breakup: BreakupFlyer | null;
+  private broke = false;
 
   constructor(scenario: Scenario, options: { samples?: number; seed?: string; flight?: Partial<FlightOptions> } = {}) {
     this.scenario = scenario;
@@ -69,10 +92,11 @@ export class DispersionRunner {
     const stream = this.stream;
     // One closure for the runner's lifetime, not one per sample.
     this.normal = () => stream.normal();
+    this.breakup = scenario.breakup ? new BreakupFlyer(scenario, this.plan, this.model, stream, options.flight) : null;
   }
 
   /** Flies samples [start, start + count) into a fresh chunk (or into `into`). */
-  runChunk(start: number, count: number, into: ChunkResult = allocateChunk(start, count)): ChunkResult {
+  runChunk(start: number, count: number, into: ChunkResult = allocateChunk(start, count, piecesPerSample(this.scenario))): ChunkResult {
     for (let j = 0; j < count; j++) {
       const index = start + j;
       const mode = modeOfSample(this.plan, index);
@@ -87,6 +111,17 @@ export class DispersionRunner {
       into.mode[j] = mode;
       into.status[j] = r.status;
       into.steps[j] = r.steps;
+      const b = this.breakup;
+      if (b !== null) {
+        into.broken[j] = this.broke ? 1 : 0;
+        const at = j * b.pieces;
+        into.pieceEast.set(b.east, at);
+        into.pieceNorth.set(b.north, at);
+        into.pieceFlightTime.set(b.flightTime, at);
+        into.pieceImpactSpeed.set(b.impactSpeed, at);
+        into.pieceImpactAngle.set(b.impactAngle, at);
+        into.pieceStatus.set(b.status, at);
+      }
     }
     return into;
   }
@@ -95,7 +130,15 @@ export class DispersionRunner {
   flySample(index: number, mode: number, track: TrackSink | null = null): FlightResult {
     this.stream.select(this.seed, index);
     this.drawer.draw(this.stream, mode, this.model.wind, this.inputs);
-    return this.model.fly(this.inputs, this.normal, this.result, track);
+    const b = this.breakup;
+    this.broke = false;
+    if (b === null) return this.model.fly(this.inputs, this.normal, this.result, track);
+    b.begin();
+    // A ground track (track given) shows the object's own flight, whole.
+    if (track !== null || !b.breaksIn(mode)) return this.model.fly(this.inputs, this.normal, this.result, track);
+    this.model.fly(this.inputs, b.loggingNormal, this.result, b.sink);
+    this.broke = b.finish(mode, this.inputs, this.result);
+    return this.result;
   }
 }
 

@@ -476,8 +476,9 @@ export class FlightModel implements OdeSystem {
     } else if (kind === 'projectile') {
       this.onRail = false;
       launchDirection(inputs.elevation, inputs.azimuth, inputs.leanAcross, false, dir);
-      y0[0] = 0;
-      y0[1] = 0;
+      // 0, 0 for a launched projectile (draw.ts); a fragment starts where its object broke up.
+      y0[0] = inputs.east;
+      y0[1] = inputs.north;
       y0[2] = inputs.height;
       y0[3] = inputs.speed * dir[0];
       y0[4] = inputs.speed * dir[1];

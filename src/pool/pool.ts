@@ -2,6 +2,7 @@ import { chunkRanges, defaultChunkSize, type Progress } from '../dispersion/exec
 import { planModes } from '../dispersion/modes.js';
 import type { RunResult } from '../dispersion/results.js';
 import { allocateChunk, type ChunkResult } from '../dispersion/runner.js';
+import { piecesPerSample } from '../dispersion/breakup.js';
 import { placeColumns, resultColumns } from '../dispersion/columns.js';
 import { ChunkFailedError, cancelledError } from './errors.js';
 import type { EngineJob, PoolWorker, PoolWorkerFactory } from './protocol.js';
@@ -45,7 +46,7 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
   const laneCount = Math.min(options.workers, ranges.length);
   // Each chunk is copied into the run's columns as it arrives and then dropped, so a large run
   // never holds its samples twice.
-  const all = allocateChunk(range[0], range[1]);
+  const all = allocateChunk(range[0], range[1], piecesPerSample(job.scenario));
   const filled = new Uint8Array(range[1]);
   const live = new Set<PoolWorker>();
   const started = Date.now();
@@ -143,7 +144,8 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
 /** A worker that answers with the wrong samples must not slip through into the results. */
 function checkChunk(chunk: ChunkResult, start: number, count: number): void {
   const arrays = resultColumns(chunk).map(([, a]) => a);
-  if (chunk.start !== start || chunk.count !== count || arrays.length === 0 || arrays.some((a) => a.length !== count)) {
+  // A sample's own columns hold one entry per sample; a breakup's piece columns a whole number per sample.
+  if (chunk.start !== start || chunk.count !== count || arrays.length === 0 || arrays[0].length !== count || arrays.some((a) => a.length % count !== 0)) {
     throw new Error(`worker answered samples ${chunk.start}+${chunk.count} (arrays of ${arrays.map((a) => a.length).join('/')}) for ${start}+${count}`);
   }
 }

@@ -6,6 +6,13 @@ import { csvField } from '../analysis/areasCsv.js';
 export const LANDINGS_HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s';
 /** Columns the risk model adds (scenario-format.md, "Results"), written when the set carries them. */
 export const RISK_COLUMNS = 'impact_energy_J,impact_angle_deg';
+/**
+ * Last on every row: which part of the object landed ('whole', or the fragment class of a piece)
+ * and the weight of its sample, the probability per flight it stands for. Every piece of a sample
+ * carries the sample's weight, so a mode's rows add up to its expected landings per flight;
+ * `strewn analyze` of this file weights modes (and counts pieces) as the run did.
+ */
+export const PART_COLUMNS = 'part,weight';
 
 const ROWS_PER_PIECE = 10_000;
 
@@ -19,7 +26,8 @@ const ROWS_PER_PIECE = 10_000;
 export function* landingsCsvChunks(set: LandingSet, frame: LocalFrame): Generator<string> {
   const names = set.modeNames.map((n) => csvField(n));
   const risk = set.impactEnergy !== undefined;
-  yield LANDINGS_HEADER + (risk ? `,${RISK_COLUMNS}` : '') + '\n';
+  const parts = set.part && set.partNames ? set.partNames.map((n) => csvField(n)) : null;
+  yield LANDINGS_HEADER + (risk ? `,${RISK_COLUMNS}` : '') + `,${PART_COLUMNS}` + '\n';
   for (let from = 0; from < set.east.length; from += ROWS_PER_PIECE) {
     const to = Math.min(set.east.length, from + ROWS_PER_PIECE);
     let piece = '';
@@ -30,6 +38,8 @@ export function* landingsCsvChunks(set: LandingSet, frame: LocalFrame): Generato
         `${lat.toFixed(8)},${lon.toFixed(8)},${set.apogee ? set.apogee[i].toFixed(2) : ''},` +
         `${set.flightTime ? set.flightTime[i].toFixed(3) : ''},${set.impactSpeed ? set.impactSpeed[i].toFixed(3) : ''}` +
         (risk ? `,${set.impactEnergy![i].toFixed(3)},${set.impactAngle && Number.isFinite(set.impactAngle[i]) ? set.impactAngle[i].toFixed(2) : ''}` : '') +
+        // Ten significant digits: enough for analyze to give a run's figures back, same bytes everywhere.
+        `,${parts ? parts[set.part![i]] : 'whole'},${set.weight[i].toPrecision(10)}` +
         '\n';
     }
     yield piece;

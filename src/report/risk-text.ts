@@ -23,6 +23,15 @@ export function riskLinesText(r: RiskSummary): string[] {
     const e = a.expectedCasualties === null ? 'no people given' : `expected casualties ${rate(a.expectedCasualties)} (95 % bound ${rate(a.upper95)})`;
     lines.push(`  area risk      ${a.name}: ${e}, ${ir}`);
   }
+  // Per part: a piece's own speed and energy (½ m v² with its own mass) and its share of the casualties.
+  for (const p of r.parts ?? []) {
+    if (!Number.isFinite(p.impactEnergy_J.p50)) continue;
+    lines.push(
+      `  part impacts   ${p.name}: speed median ${p.impactSpeed_m_s.p50.toFixed(1)} m/s (95 % ${p.impactSpeed_m_s.p95.toFixed(1)}), ` +
+        `energy median ${p.impactEnergy_J.p50.toPrecision(3)} J (95 % ${p.impactEnergy_J.p95.toPrecision(3)}), ${Math.round(p.harmfulShare * 100)} % at or over the casualty energy, ` +
+        `expected casualties ${rate(p.expectedCasualties)} per flight`,
+    );
+  }
   const c = r.total.collectiveCriterion ? `; ${r.total.collectiveCriterion}, bound ${r.total.collectiveCriterionUpper95}` : '';
   for (const w of r.warnings) lines.push(`  warning        ${w}`);
   lines.push(`  casualties     ${rate(r.total.expectedCasualties)} per flight in all areas (95 % bound ${rate(r.total.upper95)})${c}`);

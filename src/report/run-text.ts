@@ -4,6 +4,12 @@ import { CAUTION } from './caution.js';
 import { grouped, levelText, percent, unitFormatter, type UnitFormatter, type UnitSystem } from './format-number.js';
 import { riskLinesText } from './risk-text.js';
 
+/** An expected count per flight: three significant figures, plain below 1,000. */
+function perFlight(x: number): string {
+  if (x === 0) return '0';
+  return x >= 0.01 ? Number(x.toPrecision(3)).toLocaleString('en') : x.toExponential(1);
+}
+
 /** Contour, keep-out zone and area lines, the same for `run` and `analyze`. */
 export function findingLines(parts: SummaryParts, u: UnitFormatter, withWarnings = true): string[] {
   const lines: string[] = [];
@@ -11,9 +17,15 @@ export function findingLines(parts: SummaryParts, u: UnitFormatter, withWarnings
   if (Number.isFinite(parts.keepOut.area_m2)) {
     lines.push(`  keep-out zone  ${u.area(parts.keepOut.area_m2)}, reaches ${u.length(parts.keepOut.maxDistance_m)} (level ${levelText(parts.keepOut.level)}, margin ${u.distance(parts.keepOut.margin_m)})`);
   }
+  for (const p of parts.parts ?? []) {
+    const modes = p.byMode.filter((m) => m.expectedLandings > 0).map((m) => `${m.mode} ${perFlight(m.expectedLandings)}`).join(', ');
+    lines.push(`  part           ${p.name}: ${perFlight(p.expectedLandings)} landings per flight${modes === '' ? '' : ` (${modes})`}, ${grouped(p.landings)} written`);
+  }
   for (const a of parts.areas) {
     const hits = `${grouped(a.hits)} ${a.hits === 1 ? 'hit' : 'hits'}`;
-    lines.push(`  area           ${a.name} (${a.kind}): ${hits}, chance per flight ${percent(a.probability)}, 95 % upper bound ${percent(a.upper95)}`);
+    // With pieces, the chance is of at least one piece inside; the pieces expected are beside it.
+    const pieces = a.expectedLandings !== undefined ? `, ${perFlight(a.expectedLandings)} landings expected per flight` : '';
+    lines.push(`  area           ${a.name} (${a.kind}): ${hits}, chance per flight ${percent(a.probability)}${a.expectedLandings !== undefined ? ' of any part' : ''}, 95 % upper bound ${percent(a.upper95)}${pieces}`);
   }
   if (withWarnings) for (const w of parts.warnings) lines.push(`  warning        ${w}`);
   return lines;

@@ -25,6 +25,7 @@ import { polygonsArea, polygonsToEastNorth } from '../analysis/projectGeometry.j
 import type { LandingSet } from '../analysis/types.js';
 import { riskAt, type RiskSurface } from './individual.js';
 import type { ImpactHarm } from './impacts.js';
+import { chanceOfAny, perFlightWeight } from '../analysis/parts.js';
 
 export const UPPER_BOUND_METHOD =
   'one-sided 95 % Clopper-Pearson bound on the chance of a harmful landing in the area (Kish effective sample size), ' +
@@ -46,6 +47,8 @@ export interface AreaRisk {
   maxIndividualRisk: number;
   /** Expected casualties per flight by mode (zeros without people). */
   byMode: number[];
+  /** Expected casualties per flight by part (whole object, fragment classes; [] without parts). */
+  byPart: number[];
 }
 
 export function areaRisks(
@@ -56,8 +59,7 @@ export function areaRisks(
   frame: LocalFrame,
   effectiveN: number,
 ): AreaRisk[] {
-  let total = 0;
-  for (let i = 0; i < set.weight.length; i++) total += set.weight[i];
+  const total = perFlightWeight(set);
   let mostHarmful = 0;
   for (let i = 0; i < harm.exposure.length; i++) mostHarmful = Math.max(mostHarmful, harm.exposure[i]);
   return areas.map((area) => {
@@ -67,16 +69,20 @@ export function areaRisks(
     const rho = area.density ?? (area.people !== undefined ? area.people / areaM2 : null);
     const sheltered = area.sheltered ?? 0;
     const byModeRisk = new Array<number>(set.modeNames.length).fill(0);
+    const byPartRisk = new Array<number>(set.part && set.partNames ? set.partNames.length : 0).fill(0);
     let harmfulHits = 0;
-    let harmfulShare = 0;
     let riskSum = 0;
+    const harmfulInside = new Uint8Array(set.east.length);
     for (let i = 0; i < set.east.length; i++) {
       if (!(harm.weight[i] > 0) || !index.contains(set.east[i], set.north[i])) continue;
       harmfulHits++;
-      harmfulShare += set.weight[i] / total;
+      harmfulInside[i] = 1;
       riskSum += harm.weight[i];
       byModeRisk[set.mode[i]] += harm.weight[i];
+      if (byPartRisk.length > 0) byPartRisk[set.part![i]] += harm.weight[i];
     }
+    // The chance per flight of a harmful landing inside: a flight counts once however many of its pieces land there.
+    const harmfulShare = harmfulHits > 0 ? chanceOfAny(set, (i) => harmfulInside[i] === 1, total) : 0;
     const exposed = rho === null ? 0 : rho * (1 - sheltered);
     let expected: number | null = null;
     let upper: number | null = null;
@@ -96,6 +102,7 @@ export function areaRisks(
       upper95: upper,
       maxIndividualRisk: maxRiskInside(surface, metres, index),
       byMode: byModeRisk.map((r) => r * exposed),
+      byPart: byPartRisk.map((r) => r * exposed),
     };
   });
 }

@@ -11,13 +11,14 @@ import type { LandingSet } from '../analysis/types.js';
 import { casualtyArea } from './casualty-area.js';
 import { casualtyChance } from './harm.js';
 import type { RiskSettings } from './settings.js';
+import { perFlightWeight } from '../analysis/parts.js';
 
 export interface ImpactHarm {
   casualtyArea: Float64Array;
   chance: Float64Array;
   /** A_c × P per landing, m² (what one landing inside an area exposes). */
   exposure: Float64Array;
-  /** Normalised probability per flight × A_c × P, m². */
+  /** Probability per flight × A_c × P, m² (a sample's weight over the per-flight weight, pieces each counted). */
   weight: Float64Array;
 }
 
@@ -25,8 +26,8 @@ export function impactHarm(set: LandingSet, settings: RiskSettings): ImpactHarm 
   const n = set.east.length;
   const energy = set.impactEnergy;
   if (energy === undefined) throw new Error('the risk model needs the impact energy of every landing');
-  let total = 0;
-  for (let i = 0; i < n; i++) total += set.weight[i];
+  // Per flight: with pieces a sample's rows share its weight (analysis/parts.ts).
+  const total = perFlightWeight(set);
   const out: ImpactHarm = {
     casualtyArea: new Float64Array(n),
     chance: new Float64Array(n),
@@ -36,7 +37,10 @@ export function impactHarm(set: LandingSet, settings: RiskSettings): ImpactHarm 
   for (let i = 0; i < n; i++) {
     // No recorded angle: vertical, the smallest casualty area (scenario-format.md says so).
     const angle = set.impactAngle && Number.isFinite(set.impactAngle[i]) ? set.impactAngle[i] : 90;
-    out.casualtyArea[i] = casualtyArea(settings.personRadius, settings.objectRadius, settings.personHeight, angle);
+    // A fragment's own radius; the whole object's from the settings.
+    const partRadius = set.part && set.partRadius ? set.partRadius[set.part[i]] : NaN;
+    const radius = Number.isFinite(partRadius) ? partRadius : settings.objectRadius;
+    out.casualtyArea[i] = casualtyArea(settings.personRadius, radius, settings.personHeight, angle);
     out.chance[i] = casualtyChance(energy[i], settings);
     out.exposure[i] = out.casualtyArea[i] * out.chance[i];
     out.weight[i] = (set.weight[i] / total) * out.exposure[i];

@@ -20,6 +20,7 @@ import { MIN_LINE_SAMPLES, riskLines, riskSurface, type RiskLine, type RiskSurfa
 import type { RiskSettings } from './settings.js';
 import { standingDistances, standingRing, type StandingDistances } from './standing.js';
 import type { Ring } from '../analysis/rings.js';
+import { sampleWeightsOf } from '../analysis/parts.js';
 
 export type Judgement = 'under your criterion' | 'over your criterion';
 
@@ -54,6 +55,8 @@ export interface RiskResult {
   areas: AreaRisk[];
   total: { expectedCasualties: number; upper95: number };
   modes: ModeImpacts[];
+  /** The same per part (whole object, fragment classes), when the landings have parts. */
+  parts?: ModeImpacts[];
   warnings: string[];
 }
 
@@ -65,7 +68,8 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
   const lines = riskLines(surface, settings.levels, samples);
   const standingLevel = settings.criteria.individual ?? Math.min(...settings.levels);
   const standing = standingDistances(surface, standingLevel);
-  const areas = areaRisks(site.areas, set, harm, surface, frame, effectiveSampleSize(set.weight));
+  // Effective samples over flights: the pieces of one flight are not independent samples.
+  const areas = areaRisks(site.areas, set, harm, surface, frame, effectiveSampleSize(sampleWeightsOf(set)));
   const withPeople = areas.filter((a) => a.expectedCasualties !== null);
   const total = {
     expectedCasualties: withPeople.reduce((s, a) => s + (a.expectedCasualties ?? 0), 0),
@@ -90,18 +94,22 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
     areas,
     total,
     modes: modeImpacts(set, harm, areas),
+    ...(set.part && set.partNames ? { parts: modeImpacts(set, harm, areas, true) } : {}),
     warnings,
   };
 }
 
-function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[]): ModeImpacts[] {
-  return set.modeNames.map((name, m) => {
+/** Impact figures per mode, or per part with `byPart` (a piece's own speed, energy and casualties). */
+function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[], byPart = false): ModeImpacts[] {
+  const names = byPart ? set.partNames! : set.modeNames;
+  const groupOf = byPart ? set.part! : set.mode;
+  return names.map((name, m) => {
     const speed: number[] = [];
     const energy: number[] = [];
     const weight: number[] = [];
     let harmful = 0;
     for (let i = 0; i < set.east.length; i++) {
-      if (set.mode[i] !== m) continue;
+      if (groupOf[i] !== m) continue;
       speed.push(set.impactSpeed ? set.impactSpeed[i] : NaN);
       energy.push(set.impactEnergy ? set.impactEnergy[i] : NaN);
       weight.push(set.weight[i]);
@@ -116,7 +124,7 @@ function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[]): Mode
       impactSpeed_m_s: { p50: q(speed, 0.5), p95: q(speed, 0.95) },
       impactEnergy_J: { p50: q(energy, 0.5), p95: q(energy, 0.95) },
       harmfulShare: total > 0 ? harmful / total : 0,
-      expectedCasualties: areas.reduce((s, a) => s + (a.byMode[m] ?? 0), 0),
+      expectedCasualties: areas.reduce((s, a) => s + ((byPart ? a.byPart : a.byMode)[m] ?? 0), 0),
     };
   });
 }
@@ -140,6 +148,8 @@ export interface RiskSummary {
   }[];
   total: { expectedCasualties: number; upper95: number; collectiveCriterion: Judgement | null; collectiveCriterionUpper95: Judgement | null };
   modes: ModeImpacts[];
+  /** Per part, when the object may break up (harmfulShare: share of the part's landings). */
+  parts?: ModeImpacts[];
   settings: {
     casualtyEnergy_J: number | null;
     casualtyProbability: { energy_J: number[]; probability: number[] } | null;
@@ -187,6 +197,7 @@ export function riskSummary(r: RiskResult): RiskSummary {
       collectiveCriterionUpper95: againstCriterion(r.total.upper95, s.criteria.collective),
     },
     modes: r.modes,
+    ...(r.parts ? { parts: r.parts } : {}),
     settings: {
       casualtyEnergy_J: s.casualtyProbability === null ? s.casualtyEnergy : null,
       casualtyProbability: s.casualtyProbability === null ? null : { energy_J: s.casualtyProbability.energy, probability: s.casualtyProbability.probability },

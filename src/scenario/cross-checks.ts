@@ -1,5 +1,6 @@
 import { convertQuantity } from './units.js';
 import type { Issue, UncertaintyName, VehicleKind } from './types.js';
+import { breakupChecks } from './breakup-checks.js';
 
 /**
  * Checks that involve more than one field. They read the raw JSON and look only at what is
@@ -8,10 +9,12 @@ import type { Issue, UncertaintyName, VehicleKind } from './types.js';
  */
 export function crossCheck(raw: Record<string, unknown>, kind: VehicleKind | undefined): Issue[] {
   const stageNames = recoveryStageNames(raw.recovery);
+  const breakupName = isRecord(raw.breakup) && typeof raw.breakup.name === 'string' ? raw.breakup.name : undefined;
   return [
     ...referenceAreaChecks(raw.vehicle),
     ...recoveryChecks(raw.recovery, kind),
-    ...failureChecks(raw.failures, stageNames, Array.isArray(raw.recovery) && raw.recovery.length > 0, operationDuration(raw, kind)),
+    ...failureChecks(raw.failures, stageNames, Array.isArray(raw.recovery) && raw.recovery.length > 0, operationDuration(raw, kind), breakupName),
+    ...breakupChecks(raw, stageNames),
     ...releaseRouteChecks(raw.launch, kind),
     ...gustChecks(raw.weather),
     ...profileChecks(raw.weather),
@@ -157,7 +160,7 @@ function releaseRouteChecks(launch: unknown, kind: VehicleKind | undefined): Iss
   return issues;
 }
 
-function failureChecks(failures: unknown, stageNames: string[], hasStages: boolean, duration: number | null | undefined): Issue[] {
+function failureChecks(failures: unknown, stageNames: string[], hasStages: boolean, duration: number | null | undefined, breakupName?: string): Issue[] {
   if (!Array.isArray(failures)) return [];
   const issues: Issue[] = [];
   const seen = new Map<string, number>();
@@ -170,7 +173,9 @@ function failureChecks(failures: unknown, stageNames: string[], hasStages: boole
       return;
     }
     const stage = failure.stage;
-    if (typeof stage === 'string' && stage !== '') {
+    if (typeof stage === 'string' && stage !== '' && stage === breakupName) {
+      // The breakup is named like a stage: 'skip' keeps the object whole, 'early' moves the break.
+    } else if (typeof stage === 'string' && stage !== '') {
       if (!hasStages) {
         issues.push({ path: `failures[${i}].stage`, message: `'${stage}' cannot fail: the scenario has no recovery stages` });
       } else if (stage !== 'all' && !stageNames.includes(stage)) {

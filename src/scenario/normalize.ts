@@ -1,12 +1,14 @@
 import type { RawDrag } from './fields.js';
-import type { ParsedBody, ParsedRocketVehicle, ParsedScenario, ParsedStage, ParsedWeather } from './schema.js';
+import type { ParsedBody, ParsedBreakup, ParsedRocketVehicle, ParsedScenario, ParsedStage, ParsedWeather } from './schema.js';
 import { shapeLength } from './shape-checks.js';
 // A pure leaf module (no imports): the path length is measured in the same local frame the
 // flights and the analysis use.
 import { createLocalFrame } from '../analysis/geodesy.js';
 import {
   UNCERTAINTY_NAMES,
+  type Breakup,
   type FailureMode,
+  type FragmentClass,
   type LineStringGeometry,
   type ReleaseLaunch,
   type DragTable,
@@ -86,6 +88,7 @@ export function normalizeScenario(parsed: ParsedScenario, thrust?: { curve: Thru
   };
   if (parsed.notes !== undefined) scenario.notes = parsed.notes;
   if (parsed.risk !== undefined) scenario.risk = normalizeRisk(parsed.risk);
+  if (parsed.breakup !== undefined) scenario.breakup = normalizeBreakup(parsed.breakup);
   return scenario;
 }
 
@@ -233,12 +236,42 @@ function normalizeFailures(parsed: ParsedScenario): FailureMode[] {
   const together = chanceOverDuration(totalRate, duration);
   return failures.map((f) => {
     const out: FailureMode = { name: f.name, probability: f.probability ?? 0, effect: f.effect ?? 'skip', stage: f.stage };
+    if (f.effect === 'early' && f.time !== undefined) out.time = f.time;
     if (f.rate !== undefined) {
       out.rate = f.rate;
       out.probability = totalRate > 0 ? (f.rate / totalRate) * together : 0;
     }
     return out;
   });
+}
+
+/**
+ * The breakup with each piece's drag area, reference area and casualty radius worked out: from
+ * `diameter` (A = π d²/4, radius d/2), from `referenceArea` (radius √(A/π)), or from `dragArea`
+ * alone (Cd taken as 1, so A = Cd·A and radius √(A/π)); `radius` overrides the casualty radius.
+ */
+function normalizeBreakup(b: ParsedBreakup): Breakup {
+  const out: Breakup = {
+    name: b.name,
+    trigger: b.trigger,
+    delay: b.trigger === 'apogee' ? (b.delay ?? 0) : 0,
+    fragments: b.fragments.map((f): FragmentClass => {
+      const drag = f.dragArea !== undefined ? 1 : f.drag!;
+      const referenceArea = f.dragArea ?? f.referenceArea ?? (Math.PI * f.diameter! * f.diameter!) / 4;
+      return {
+        name: f.name,
+        count: f.count,
+        mass: f.mass,
+        dragArea: drag * referenceArea,
+        drag,
+        referenceArea,
+        speed: f.speed ?? 0,
+        radius: f.radius ?? (f.diameter !== undefined ? f.diameter / 2 : Math.sqrt(referenceArea / Math.PI)),
+      };
+    }),
+  };
+  if (b.trigger === 'time') out.time = b.time;
+  return out;
 }
 
 function normalizeStage(stage: ParsedStage, mass: number): RecoveryStage {

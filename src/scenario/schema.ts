@@ -53,6 +53,8 @@ export const MAX_SITE_DISTANCE = 500_000;
 const FLAT_FRAME_HINT = "Strewn's flat local frame holds only within a few hundred kilometres of the pad";
 /** Highest pad latitude, degrees north or south. */
 export const MAX_PAD_LATITUDE = 89.9;
+/** Most pieces of one fragment class: every piece is flown, so the count multiplies the run's work. */
+export const MAX_FRAGMENT_COUNT = 1000;
 export const VEHICLE_KINDS: readonly VehicleKind[] = ['rocket', 'projectile', 'release'];
 export const TRIGGER_KINDS: readonly TriggerKind[] = ['apogee', 'altitude', 'time'];
 export const AREA_KINDS: readonly AreaKind[] = ['spectators', 'parking', 'road', 'building', 'water', 'other'];
@@ -255,12 +257,37 @@ const failureSchema = strict({
   // Exactly one of probability and rate (cross-checks).
   probability: optionalQuantity('fraction', { min: 0, max: 1 }),
   rate: optionalQuantity('rate', NOT_NEGATIVE),
-  // "skip" is the only effect in version 1, so it may be left out.
-  effect: leaf((value): LeafResult<'skip'> => {
-    if (value === 'skip') return ok('skip');
-    return fail(`${describeValue(value)} is not an effect this version knows; expected 'skip'`);
+  // "skip" is the default effect, so it may be left out; "early" moves a breakup (cross-checks).
+  effect: leaf((value): LeafResult<'skip' | 'early'> => {
+    if (value === 'skip' || value === 'early') return ok(value);
+    return fail(`${describeValue(value)} is not an effect this version knows; expected 'skip' or 'early'`);
   }).optional(),
-  stage: text("a recovery stage name or 'all'"),
+  stage: text("a recovery stage name, 'all', or the breakup's name"),
+  time: optionalQuantity('time', NOT_NEGATIVE),
+});
+
+/** One class of pieces of a breakup (cross-checks: one way to give the size). */
+const fragmentSchema = strict({
+  name: text('a name for this class of pieces in quotes'),
+  count: leaf((value): LeafResult<number> => {
+    if (typeof value === 'number' && Number.isInteger(value) && value >= 1 && value <= MAX_FRAGMENT_COUNT) return ok(value);
+    return fail(`${value === undefined ? 'missing (required)' : describeValue(value)}; expected a whole number of pieces, 1 to ${MAX_FRAGMENT_COUNT}`);
+  }),
+  mass: quantity('mass', POSITIVE),
+  diameter: optionalQuantity('length', POSITIVE),
+  referenceArea: optionalQuantity('area', POSITIVE),
+  dragArea: optionalQuantity('area', POSITIVE),
+  drag: optionalQuantity('number', POSITIVE),
+  speed: optionalQuantity('speed', NOT_NEGATIVE),
+  radius: optionalQuantity('length', POSITIVE),
+});
+
+const breakupSchema = strict({
+  name: text('a name for the breakup in quotes'),
+  trigger: oneOf(['apogee', 'time'] as const),
+  delay: optionalQuantity('time', NOT_NEGATIVE),
+  time: optionalQuantity('time', NOT_NEGATIVE),
+  fragments: z.array(fragmentSchema).min(1),
 });
 
 const runSchema = (cap: number) =>
@@ -303,6 +330,7 @@ const topSchema = (cap: number) =>
     failures: z.array(failureSchema).optional(),
     run: runSchema(cap).optional(),
     risk: riskSchema.optional(),
+    breakup: breakupSchema.optional(),
   });
 
 // ---------------------------------------------------------------------------------------------
@@ -314,6 +342,7 @@ export type ParsedSite = z.output<typeof siteSchema>;
 export type ParsedStage = z.output<typeof stageSchema>;
 export type ParsedWeather = z.output<typeof weatherSchema>;
 export type ParsedFailure = z.output<typeof failureSchema>;
+export type ParsedBreakup = z.output<typeof breakupSchema>;
 export type ParsedRun = z.output<ReturnType<typeof runSchema>>;
 export type ParsedRocketVehicle = z.output<typeof rocketVehicleSchema>;
 export type ParsedPlainVehicle = z.output<typeof projectileVehicleSchema>;

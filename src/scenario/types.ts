@@ -259,9 +259,50 @@ export interface FailureMode {
   probability: number;
   /** The rate per second the probability was worked out from, when the file gave one. */
   rate?: number;
-  effect: 'skip';
-  /** A recovery stage name, or "all". */
+  /**
+   * 'skip': the named stage (or every recovery stage, "all") never deploys, or the named breakup
+   * never happens. 'early': the named breakup happens at `time` after launch instead.
+   */
+  effect: 'skip' | 'early';
+  /** A recovery stage name, "all", or the breakup's name. */
   stage: string;
+  /** Effect 'early': seconds after launch at which the breakup happens. */
+  time?: number;
+}
+
+/**
+ * One class of pieces the object breaks into (scenario `breakup.fragments`). Every piece flies
+ * as a point mass from the break state with its own drag and an added velocity of `speed` in a
+ * direction drawn uniformly over the sphere.
+ */
+export interface FragmentClass {
+  name: string;
+  /** Pieces of this class per breakup (a whole number, 1 or more). */
+  count: number;
+  /** kg, one piece. */
+  mass: number;
+  /** Drag coefficient times reference area of one piece, m². */
+  dragArea: number;
+  /** Drag coefficient (1 when the file gives dragArea only). */
+  drag: number;
+  /** Reference area, m² (π d²/4 from `diameter`, or dragArea / drag). */
+  referenceArea: number;
+  /** Added speed relative to the object at the break, m/s (0: the piece keeps the object's velocity). */
+  speed: number;
+  /** Radius for the casualty area, m: `radius`, else half the diameter, else √(A/π). */
+  radius: number;
+}
+
+/** The object breaks into fragment classes at a trigger (scenario `breakup`). */
+export interface Breakup {
+  /** Named by failure modes ('skip': no breakup; 'early': a breakup at another time). */
+  name: string;
+  trigger: 'apogee' | 'time';
+  /** Seconds after apogee (trigger apogee), default 0. */
+  delay: number;
+  /** Seconds after launch (trigger time). */
+  time?: number;
+  fragments: FragmentClass[];
 }
 
 export interface KeepOut {
@@ -359,6 +400,8 @@ export interface Scenario {
   failures: FailureMode[];
   run: RunSettings;
   risk?: RiskInput;
+  /** The object breaks into pieces (absent: it always lands whole; the hash stays as it was). */
+  breakup?: Breakup;
 }
 
 /** One input problem: the field path, the value given, and what was expected. */
