@@ -84,8 +84,11 @@ export function* landingsFlatGeobufChunks(set: LandingSet, pad: { lat: number; l
     ...figures.map((f) => ({ name: f.name, type: ColumnType.Double, description: f.name })),
     { name: 'weight', type: ColumnType.Double, description: 'probability this landing stands for' },
   ];
+  // Which part landed, last, when the object may break up (absent otherwise: the file keeps its bytes).
+  const partBytes = set.part && set.partNames ? set.partNames.map((name) => new TextEncoder().encode(name)) : null;
+  if (partBytes) columns.push({ name: 'part', type: ColumnType.String, description: "part of the object: 'whole' or a fragment class" });
   const modeBytes = set.modeNames.map((name) => new TextEncoder().encode(name));
-  const props = new Uint8Array(64 + columns.length * 10 + Math.max(0, ...modeBytes.map((m) => m.length)));
+  const props = new Uint8Array(64 + columns.length * 10 + Math.max(0, ...modeBytes.map((m) => m.length)) + Math.max(0, ...(partBytes ?? []).map((m) => m.length)));
   const view = new DataView(props.buffer);
   const xy = new Float64Array(2);
   const b = new Builder(256);
@@ -121,6 +124,13 @@ export function* landingsFlatGeobufChunks(set: LandingSet, pad: { lat: number; l
     double(3, set.north[i]);
     for (let k = 0; k < figures.length; k++) double(4 + k, figures[k].values[i]);
     double(4 + figures.length, set.weight[i]);
+    if (partBytes) {
+      const part = partBytes[set.part![i]];
+      view.setUint16(at, 5 + figures.length, true);
+      view.setUint32(at + 2, part.length, true);
+      props.set(part, at + 6);
+      at += 6 + part.length;
+    }
 
     b.clear();
     const propertiesOffset = Feature.createPropertiesVector(b, props.subarray(0, at));

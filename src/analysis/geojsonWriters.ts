@@ -79,6 +79,8 @@ const CHUNK = 5_000;
 export function* landingsGeoJSONChunks(set: LandingSet, pad: { lat: number; lon: number }, subset: LandingSubset | null = null): Generator<string> {
   const frame = createLocalFrame(pad);
   const names = set.modeNames.map((name) => JSON.stringify(name));
+  // Which part landed, when the object may break up (absent otherwise, so those files keep their bytes).
+  const parts = set.part && set.partNames ? set.partNames.map((name) => JSON.stringify(name)) : null;
   const figures = landingFigures(set);
   const known = new Map(figures.map((f) => [f.name, f]));
   // The fixed properties keep their place (and null when absent); other figures follow them.
@@ -104,7 +106,7 @@ export function* landingsGeoJSONChunks(set: LandingSet, pad: { lat: number; lon:
       features[k - from] =
         `{"type":"Feature","geometry":{"type":"Point","coordinates":[${roundTo(lon, COORDINATE_DECIMALS)},` +
         `${roundTo(lat, COORDINATE_DECIMALS)}]},"properties":{"sample":${set.sample ? set.sample[i] : i},` +
-        `"mode":${names[set.mode[i]] ?? 'null'},"east_m":${roundTo(set.east[i], 2)},` +
+        `"mode":${names[set.mode[i]] ?? 'null'},${parts ? `"part":${parts[set.part![i]]},` : ''}"east_m":${roundTo(set.east[i], 2)},` +
         `"north_m":${roundTo(set.north[i], 2)}${more},` +
         `"weight":${Number(weight.toPrecision(6))}}}`;
     }

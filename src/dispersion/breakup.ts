@@ -141,11 +141,19 @@ export class BreakupFlyer {
     return !Number.isNaN(this.modeBreak[mode]);
   }
 
-  /** Starts a sample: empties the recorded track and the gust log, marks every piece not flown. */
+  /**
+   * Starts a sample: empties the recorded track and the gust log, marks every piece not flown
+   * (NaN figures, so nothing of an earlier sample is left in its columns).
+   */
   begin(): void {
     this.n = 0;
     this.logged = 0;
     this.status.fill(PIECE_NOT_FLOWN);
+    this.east.fill(NaN);
+    this.north.fill(NaN);
+    this.flightTime.fill(NaN);
+    this.impactSpeed.fill(NaN);
+    this.impactAngle.fill(NaN);
   }
 
   /**
