@@ -3,7 +3,7 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, strewn, tempDir } from './helpers.js';
 
-const HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s,impact_energy_J,impact_angle_deg';
+const HEADER = 'sample,mode,east_m,north_m,lat,lon,apogee_m,flight_time_s,impact_speed_m_s,impact_energy_J,impact_angle_deg,part,weight';
 
 function run(scenario: string, extra: string[]) {
   const out = join(tempDir(), 'out');

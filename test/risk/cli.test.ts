@@ -21,7 +21,7 @@ describe('strewn run: risk files and --until-stable', () => {
 
   it('writes the risk columns, risk.geojson and the KML layers', () => {
     const csv = readFileSync(join(out, 'landings.csv'), 'utf8').split('\n')[0];
-    expect(csv.endsWith(',impact_energy_J,impact_angle_deg')).toBe(true);
+    expect(csv.endsWith(',impact_energy_J,impact_angle_deg,part,weight')).toBe(true);
     const geo = JSON.parse(readFileSync(join(out, 'risk.geojson'), 'utf8'));
     expect(geo.features.filter((f: { properties: { kind: string } }) => f.properties.kind === 'individual-risk')).toHaveLength(3);
     expect(readFileSync(join(out, 'areas.csv'), 'utf8')).toMatch(/expected_casualties,expected_casualties_upper95,max_individual_risk/);
