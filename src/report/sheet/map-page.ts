@@ -391,7 +391,10 @@ function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: s
       const drawn = landings.mode.filter((x) => x === i).length;
       const landed = mode.landed ?? drawn;
       if (landed === 0) return;
-      const count = drawn < landed ? `${grouped(drawn)} of ${grouped(landed)} drawn` : grouped(landed);
+      // With a breakup a flight lands as many pieces: say both, pieces drawn and flights.
+      const count = input.summary.parts
+        ? `${grouped(landed)} flights; ${grouped(drawn)} landings drawn`
+        : drawn < landed ? `${grouped(drawn)} of ${grouped(landed)} drawn` : grouped(landed);
       entries.push({ swatch: { kind: 'marker', symbol: marker.symbol, color: marker.color, size: marker.size, opacity: Math.min(1, marker.opacity + 0.2) }, text: `${WORDS.landings(mode.name)} (${count})` });
     });
   }

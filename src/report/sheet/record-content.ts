@@ -169,7 +169,20 @@ function spreadsText(sc: Scenario, u: UnitFormatter): string {
 
 function failuresText(sc: Scenario): string {
   if (sc.failures.length === 0) return 'none';
-  return sc.failures.map((f) => `${f.name}: ${percent(f.probability)} of flights, ${f.stage === 'all' ? 'no recovery stage deploys' : `stage "${f.stage}" does not deploy`}`).join('; ');
+  const effect = (f: Scenario['failures'][number]) => {
+    if (sc.breakup && f.stage === sc.breakup.name) return f.effect === 'early' ? `breaks up at ${significant(f.time ?? 0, 3)} s instead` : 'lands whole (no breakup)';
+    return f.stage === 'all' ? 'no recovery stage deploys' : `stage "${f.stage}" does not deploy`;
+  };
+  return sc.failures.map((f) => `${f.name}: ${percent(f.probability)} of flights, ${effect(f)}`).join('; ');
+}
+
+/** The breakup: when, and each class of pieces with its count, mass, drag area and added speed. */
+function breakupText(sc: Scenario, u: UnitFormatter): string | null {
+  const b = sc.breakup;
+  if (!b) return null;
+  const when = b.trigger === 'time' ? `${significant(b.time ?? 0, 3)} s after launch` : b.delay > 0 ? `${significant(b.delay, 3)} s after apogee` : 'at apogee';
+  const pieces = b.fragments.map((f) => `${f.count} × ${f.name} (${u.mass(f.mass)}, Cd·A ${u.smallArea(f.dragArea)}, +${u.speed(f.speed)})`);
+  return `"${b.name}" ${when} into ${pieces.join(', ')}; each piece flown as a point mass, its added speed in a random direction`;
 }
 
 function siteText(sc: Scenario, u: UnitFormatter): string {
@@ -242,6 +255,8 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     { label: 'Spreads', value: spreadsText(sc, u) },
     { label: 'Failure modes', value: failuresText(sc) },
   );
+  const breakup = breakupText(sc, u);
+  if (breakup) inputs.splice(inputs.length - 1, 0, { label: 'Breakup', value: breakup });
   blocks.push({ kind: 'rows', rows: inputs });
 
   blocks.push({ kind: 'heading', text: 'Results' });
@@ -254,6 +269,14 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     { label: 'Apogee', value: `${spread5(s.apogee_m, (v) => u.length(v))} (above the pad)` },
     { label: 'Flight time', value: spread5(s.flightTime_s, (v) => (Number.isFinite(v) && v !== null ? `${significant(v, 3)} s` : 'n/a')) },
   ];
+  if (s.parts) {
+    // Per part: each row of landings.csv is a piece (or a whole object) with its flight's weight.
+    const per = (x: number) => (x >= 0.01 ? significant(x, 3) : x === 0 ? '0' : x.toExponential(1));
+    results.push({
+      label: 'Parts landing',
+      value: `${s.parts.map((p) => `${p.name} ${per(p.expectedLandings)} per flight`).join(', ')}; ${grouped(s.parts.reduce((n, p) => n + p.landings, 0))} landings in all. Regions and the zone hold their share of all landings, pieces counted; an area's chance is of any piece`,
+    });
+  }
   if (s.farthestLanding) {
     const f = s.farthestLanding;
     results.push({ label: 'Farthest landing', value: `${u.length(f.distance_m)} from the pad toward ${bearingText(f.bearing_deg)} (sample ${f.sample}, ${f.mode})` });
@@ -289,7 +312,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       kind: 'rows',
       rows: [
         { label: 'Keep-out zone', value: `${u.area(k.area_m2)}, reaching ${u.length(k.maxDistance_m)} from the pad; made of: ${k.parts.map((p) => keepOutPart(p, u)).join(', ')}` },
-        { label: 'Landings outside it', value: `${percent(s.keepOut.outsideShare)} of flights (95 % bound ${percent(s.keepOut.outsideUpper95)})` },
+        { label: 'Landings outside it', value: `${percent(s.keepOut.outsideShare)} of ${s.parts ? 'landings, pieces counted' : 'flights'} (95 % bound ${percent(s.keepOut.outsideUpper95)})` },
         { label: 'Zone outside the site', value: boundaryShare },
       ],
     });
