@@ -98,11 +98,16 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
   if (s.modes.length > 1) {
     out.push(table('Modes', 'modes', ['Mode', 'Probability', 'Samples', 'Landed'], s.modes.map((m) => [m.name, percent(m.probability), grouped(m.samples), grouped(m.landed)])));
   }
+  if (s.parts) {
+    // A breakup: each flight lands as pieces, each piece an event per flight.
+    const per = (x: number) => (x >= 0.01 ? x.toPrecision(3) : x === 0 ? '0' : x.toExponential(1));
+    out.push(table('Parts: landings expected per flight', 'parts', ['Part', 'Per flight', 'Landings'], s.parts.map((p) => [p.name, per(p.expectedLandings), grouped(p.landings)])));
+  }
   if (s.areas.length > 0) {
     const overlaps = new Map((study.analysis?.areas ?? []).map((a) => [a.name, a.intersectsKeepOut]));
     out.push(
       table(
-        'Marked areas: chance per flight of a landing inside',
+        s.parts ? 'Marked areas: chance per flight that any piece lands inside' : 'Marked areas: chance per flight of a landing inside',
         'areas',
         ['Area', 'Hits', 'Chance', '95 % bound', 'Overlaps zone'],
         s.areas.map((a) => [el('span', {}, a.name, el('span', { class: 'area-kind', text: a.kind })), grouped(a.hits), percent(a.probability), percent(a.upper95), overlaps.get(a.name) ? 'yes' : 'no']),
@@ -170,6 +175,16 @@ function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => stri
       smallRate(m.expectedCasualties),
     ])),
   );
+  if (r.parts) {
+    out.push(
+      table('Impacts by part (each piece with its own mass and casualty area)', 'risk-parts', ['Part', 'Speed, median (95 %)', 'Energy, median (95 %)', 'Expected casualties'], r.parts.map((m) => [
+        m.name,
+        `${inUnit(m.impactSpeed_m_s.p50, u.speed, 1)} (${inUnit(m.impactSpeed_m_s.p95, u.speed, 1)})`,
+        Number.isFinite(m.impactEnergy_J.p50) ? `${m.impactEnergy_J.p50.toPrecision(3)} J (${m.impactEnergy_J.p95.toPrecision(3)} J)` : '–',
+        smallRate(m.expectedCasualties),
+      ])),
+    );
+  }
   out.push(el('p', { class: 'note', text: 'Not a compliance figure: people spread evenly over each area, all modes counted; "under / over your criterion" compares with the criteria you set, it is not a verdict on the event.' }));
   return out;
 }

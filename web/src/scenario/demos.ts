@@ -26,6 +26,7 @@ const MOTORS: AttachedFiles = Object.fromEntries(Object.entries(MOTOR_TEXTS).map
 const LABELS: Record<string, string> = {
   'club-rocket': 'Club rocket (dual deploy)',
   'display-shell': 'Display shell that fails to burst',
+  'display-shell-burst': 'Display shell bursting into casing pieces',
   'drone-power-loss': 'Camera drone losing power',
 };
 
@@ -37,10 +38,11 @@ const INTROS: Record<string, string> = {
   'club-rocket': 'Demo with problems on purpose: its keep-out zone overlaps the spectators and its forecast wind is outside its wind limits. Try Run, then Wind limits, then drag the pad.',
   'display-shell': 'Demo: a display shell that sometimes fails to burst. Press Run and see where unburst shells land beside the spectators.',
   'drone-power-loss': 'Demo: a camera drone losing power on its path. Press Run and see where it can come down.',
+  'display-shell-burst': 'Demo: a display shell that bursts into casing pieces, sometimes low, sometimes not at all. Press Run and read Parts in Findings: every piece is a landing.',
 };
 
 /** The order of the picker: the club rocket first (the page opens with it), then by name. */
-const ORDER = ['club-rocket', 'display-shell', 'drone-power-loss'];
+const ORDER = ['club-rocket', 'display-shell', 'display-shell-burst', 'drone-power-loss'];
 
 export const DEMOS: readonly Demo[] = Object.entries(SCENARIO_TEXTS)
   .map(([path, text]) => {
