@@ -49,7 +49,9 @@ export async function checkCommand(args: string[]): Promise<number> {
   };
   process.stdout.write(JSON.stringify(shown, null, 2) + '\n');
   const n = loaded.nominal;
-  const status = n.status === 0 ? `lands ${u.length(Math.hypot(n.east, n.north))} from the pad after ${n.flightTime.toFixed(1)} s` : `fails: ${FAILURE_REASONS[n.status]}`;
+  // With a breakup the nominal flight's figures are its farthest piece's (dispersion/breakup.ts).
+  const landing = sc.breakup ? `breaks up ('${sc.breakup.name}'); its farthest piece lands` : 'lands';
+  const status = n.status === 0 ? `${landing} ${u.length(Math.hypot(n.east, n.north))} from the pad after ${n.flightTime.toFixed(1)} s` : `fails: ${FAILURE_REASONS[n.status]}`;
   const lines = [`scenario '${sc.name}' is valid (hash ${loaded.hash.slice(0, 12)}); nominal flight: apogee ${u.length(n.apogee)}, ${status}`];
   lines.push(...spreadLines(sc, u), ...descentLines(sc, u, air.densityAt(0)));
   process.stderr.write(lines.join('\n') + '\n');

@@ -127,10 +127,12 @@ export function combineEvent(plan: EventPlan, outcomes: ItemOutcome[]): EventTot
       const row = o.analysis?.areas.find((a) => a.name === area.name);
       if (!row) return;
       const p = row.probability * items[i].chancePerFlight;
+      // With a breakup a flight may put many pieces in the area: count them; the chance is of any.
+      const landings = (row.expectedLandings ?? row.probability) * items[i].chancePerFlight;
       const n = o.item.flights;
-      expectedLandings += n * p;
+      expectedLandings += n * landings;
       noneProbability *= Math.pow(1 - p, n);
-      if (p > 0) byItem.push({ name: o.item.name, expectedLandings: n * p });
+      if (landings > 0) byItem.push({ name: o.item.name, expectedLandings: n * landings });
       const harm = o.harm?.areas.find((a) => a.name === area.name);
       if (harm !== undefined) casualties = (casualties ?? 0) + n * items[i].chancePerFlight * harm.expectedCasualties;
     });
