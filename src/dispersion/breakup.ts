@@ -327,3 +327,23 @@ export function hermiteState(t: Float64Array, y: Float64Array, a: Float64Array, 
     out[4 + c] = h00 * v0 + h10 * h * a[3 * k + c] + h01 * v1 + h11 * h * a[3 * (k + 1) + c];
   }
 }
+
+/**
+ * Pieces of the run's broken samples that failed to fly to the ground (never written as
+ * landings), with the reasons by status code: their share lowers the expected counts.
+ */
+export function failedPieces(run: { count: number; status: Uint8Array; broken: Uint8Array; pieceStatus: Uint8Array }): { flown: number; failed: Map<number, number> } {
+  const pieces = run.count > 0 ? run.pieceStatus.length / run.count : 0;
+  const failed = new Map<number, number>();
+  let flown = 0;
+  for (let i = 0; i < run.count; i++) {
+    if (run.broken[i] !== 1) continue;
+    for (let p = 0; p < pieces; p++) {
+      const s = run.pieceStatus[i * pieces + p];
+      if (s === PIECE_NOT_FLOWN) continue;
+      flown++;
+      if (s !== FlightStatus.LANDED) failed.set(s, (failed.get(s) ?? 0) + 1);
+    }
+  }
+  return { flown, failed };
+}

@@ -1,4 +1,5 @@
 import type { RunResult } from '../dispersion/results.js';
+import { failedPieces } from '../dispersion/breakup.js';
 import { sampleWeights } from '../dispersion/results.js';
 import type { AnalysisResult } from '../analysis/index.js';
 import { summaryParts, type SummaryParts } from '../analysis/summary.js';
@@ -96,6 +97,15 @@ export function failureWarnings(samples: number, failed: number, failures: { rea
   ];
 }
 
+/** A breakup's pieces that failed to fly to the ground are named, with how many (not written as landings). */
+function pieceWarnings(run: RunResult): string[] {
+  const { flown, failed } = failedPieces(run);
+  const total = [...failed.values()].reduce((a, b) => a + b, 0);
+  if (total === 0) return [];
+  const reasons = [...failed.entries()].sort((a, b) => a[0] - b[0]).map(([code, n]) => `${n.toLocaleString('en')} ${FAILURE_REASONS[code] ?? `code ${code}`}`).join(', ');
+  return [`${total.toLocaleString('en')} of ${flown.toLocaleString('en')} fragment pieces failed to fly to the ground (${reasons}); they are not landings, so the expected pieces per flight are that much lower`];
+}
+
 /** For a run in which no sample landed: the message of exit 1, with the reasons counted. */
 export function allFailedMessage(summary: Pick<RunSummary, 'samples' | 'failures'>): string {
   return `every one of the ${summary.samples.toLocaleString('en')} samples failed (${reasonsText(summary.failures)}); nothing was written. Check the scenario (strewn check) for the cause`;
@@ -152,7 +162,7 @@ export function buildRunSummary(
     })),
     ...operationPart(scenario),
     ...parts,
-    warnings: [...failureWarnings(run.count, failedSamples, failureList), ...parts.warnings],
+    warnings: [...failureWarnings(run.count, failedSamples, failureList), ...pieceWarnings(run), ...parts.warnings],
     ...(sensitivity ? { sensitivity } : {}),
     ...nominalParts(scenario),
     ...(analysis?.risk ? { risk: riskSummary(analysis.risk) } : {}),

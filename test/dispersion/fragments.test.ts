@@ -204,3 +204,19 @@ describe('counts and weights (expected landings per flight = Σ count × P(mode)
     expect(Buffer.from(c1.pieceEast.buffer)).toEqual(Buffer.from(run.pieceEast.buffer, 270 * 10 * 8, 20 * 10 * 8));
   });
 });
+
+describe('pieces that fail to fly to the ground', () => {
+  it('are counted with their reason and never written as landings (a feather-light class past the time limit)', async () => {
+    const { failedPieces } = await import('../../src/dispersion/breakup.js');
+    const { FlightStatus } = await import('../../src/flight/status.js');
+    // Terminal speed √(2 m g / (ρ Cd A)) ≈ 0.4 m/s: from ~170 m it needs minutes; the limit is 60 s.
+    const feather = piece('tissue', 3, 1, 0.0005, 1.3, 0.05);
+    const stone = piece('stone', 1, 1, 0.05, 0.5, 1e-3);
+    const sc = shell({ name: 'burst', trigger: 'apogee', delay: 0, fragments: [feather, stone] });
+    const { run, set } = fly(sc, 5, { maxTime: 60 });
+    const { flown, failed } = failedPieces(run);
+    expect(flown).toBe(5 * 4);
+    expect(failed.get(FlightStatus.MAX_TIME)).toBe(5 * 3);
+    expect(Array.from(set.part!)).toEqual(new Array(5).fill(2));
+  });
+});
