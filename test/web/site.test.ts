@@ -175,18 +175,18 @@ describe('site on the map', () => {
     await mapIdle(page);
     await page.screenshot({ path: join(session.shots, 'site-crossing-1440.png') });
 
-    // Edit: drag the third corner over to where the fourth's partner should be.
+    // Edit: drag the third corner to the right of the fourth: A-B-C'-D no longer crosses.
     await page.locator(`[data-area-index="${index}"] [data-test="edit-area"]`).click();
+    const to = { x: clicks[3]!.x + 80, y: clicks[3]!.y };
     await page.mouse.move(clicks[2]!.x, clicks[2]!.y);
     await page.mouse.down();
-    await page.mouse.move(clicks[2]!.x + 60, clicks[2]!.y + 10, { steps: 4 });
-    await page.mouse.move(clicks[3]!.x, clicks[3]!.y + 40, { steps: 6 });
+    await page.mouse.move(clicks[2]!.x + 30, clicks[2]!.y + 10, { steps: 4 });
+    await page.mouse.move(to.x, to.y, { steps: 8 });
     await page.mouse.up();
-    // Corners now A, B, (below D), D: A-B-C'-D does not cross.
     await expect.poll(() => page.evaluate(() => window.__strewnSite!.issues().length)).toBe(0);
     expect(await page.locator('[data-test="run"]').isDisabled()).toBe(false);
     const moved = (await draft(page)).site.areas[index].geometry.coordinates[0][2];
-    expect(await pixelGap(page, moved, { x: clicks[3]!.x, y: clicks[3]!.y + 40 })).toBeLessThan(1.5);
+    expect(await pixelGap(page, moved, to)).toBeLessThan(1.5);
   }, TEST_TIMEOUT);
 
   it('a KML with two areas is imported (names, kinds, head counts, corners) and the page and the command line find the same', async () => {
@@ -215,8 +215,8 @@ describe('site on the map', () => {
     expect(areas[before]).toEqual({ name: 'East crowd', kind: 'spectators', people: 80, geometry: { type: 'Polygon', coordinates: [[...crowd, crowd[0]]] } });
     expect(areas[before + 1]).toEqual({ name: 'Farm lane', kind: 'road', geometry: { type: 'Polygon', coordinates: [[...lane, lane[0]]] } });
     // The map draws them (the accepted scenario's areas source).
-    const drawn = await page.evaluate(() => window.__strewn!.sourceData('areas').features.map((f) => f.properties!.name as string));
-    expect(drawn).toEqual(expect.arrayContaining(['East crowd', 'Farm lane']));
+    const drawn = await page.evaluate(() => window.__strewn!.sourceData('areas').features.map((f) => [f.properties!.index, f.properties!.kind]));
+    expect(drawn).toEqual(expect.arrayContaining([[before, 'spectators'], [before + 1, 'road']]));
 
     expect(await runAndWait(page)).toBe('finished');
     const web = await summaryOf(page);
@@ -260,8 +260,11 @@ describe('site on the map', () => {
     // The mean wind the run flies is the profile at the reference height (10 m, the first row here).
     expect(wind.speed).toBeCloseTo(expected[0]!.speed, 1);
     await page.setViewportSize({ width: 800, height: 900 });
+    await view.scrollIntoViewIfNeeded();
     await mapIdle(page);
     await page.screenshot({ path: join(session.shots, 'site-forecast-800.png') });
+    // The profile table fits the panel at 800 px (it scrolls inside its own box, never the page sideways).
+    expect(await page.evaluate(() => { const t = document.querySelector('[data-test="forecast-profile"]')!; return t.scrollWidth <= t.parentElement!.clientWidth + 1; })).toBe(true);
     expect(await runAndWait(page)).toBe('finished');
   }, TEST_TIMEOUT);
 
@@ -299,6 +302,8 @@ describe('site on the map', () => {
     }
     await mapIdle(page);
     expect(await page.evaluate(() => window.__strewnSite!.rendered(['terrain-line', 'terrain-line-major']))).toBeGreaterThan(0);
+    await page.locator('[data-test="terrain-summary"]').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(session.shots, 'site-terrain-1440.png') });
     await page.setViewportSize({ width: 360, height: 800 });
     await mapIdle(page);
     await page.screenshot({ path: join(session.shots, 'site-terrain-360.png'), fullPage: true });

@@ -3,7 +3,7 @@ import type { Feature, FeatureCollection } from 'geojson';
 import type { Store } from '../app/store.js';
 import type { ScenarioDocument } from '../scenario/document.js';
 import { issueConcerns } from '../panels/issues.js';
-import { freshAreaName, targetPath, withNewArea, withRing, type LonLat } from '../scenario/site-edits.js';
+import { freshAreaName, rawAreas, targetPath, targetRing, withNewArea, withRing, type LonLat, type SiteTarget } from '../scenario/site-edits.js';
 import type { SiteMode, SiteSession } from './site-session.js';
 
 /**
@@ -58,7 +58,7 @@ export class SiteEditor {
     store.subscribe((state, previous) => {
       // A new scenario (file, demo) ends any editing; a changed draft may make the ring (in)valid.
       if (state.documentVersion !== previous.documentVersion && this.session.mode.kind !== 'idle') this.session.set({ kind: 'idle' });
-      else if (state.draftIssues !== previous.draftIssues) this.render();
+      else if (state.draftIssues !== previous.draftIssues || state.draft !== previous.draft) this.render();
     });
     map.on('click', (e) => this.click(e));
     map.on('dblclick', (e) => {
@@ -137,7 +137,12 @@ export class SiteEditor {
     }
     if (mode.target === 'boundary') this.actions.editDocument((doc) => withRing(doc, 'boundary', corners));
     else this.actions.editDocument((doc) => withNewArea(doc, { name: freshAreaName(doc.json), kind: this.nextKind }, corners));
-    this.session.set({ kind: 'idle' }, mode.target === 'boundary' ? 'Boundary drawn.' : 'Area added: name it and choose its kind below.');
+    const state = this.store.get();
+    const target: SiteTarget = mode.target === 'boundary' ? 'boundary' : rawAreas(state.draft.json).length - 1;
+    const problem = state.draftIssues.find((i) => issueConcerns(i, targetPath(target)));
+    const done = mode.target === 'boundary' ? 'Boundary drawn' : 'Area added';
+    // Said here too: the list with the message may be scrolled out of view.
+    this.session.set({ kind: 'idle' }, problem ? `${done}, but it cannot be used: ${problem.message}. Edit its corners, or delete it.` : mode.target === 'boundary' ? `${done}.` : `${done}: name it and choose its kind below.`);
   }
 
   private move(e: MapMouseEvent): void {
@@ -248,6 +253,16 @@ export class SiteEditor {
         if (line.length >= 2) features.push({ type: 'Feature', properties: { invalid }, geometry: { type: 'LineString', coordinates: line } });
       }
       corners.forEach((p, i) => features.push({ type: 'Feature', properties: { role: 'corner', index: i, selected: mode.kind === 'edit' && mode.selected === i, invalid }, geometry: { type: 'Point', coordinates: p } }));
+    }
+    // Polygons of the draft the validator refused are not on the map's own layers (those show the
+    // last valid scenario): drawn here in the problem colour, so the user sees what is wrong.
+    const { draft, draftIssues } = this.store.get();
+    const editing = mode.kind === 'edit' ? mode.target : null;
+    const targets: SiteTarget[] = ['boundary', ...rawAreas(draft.json).map((_, i) => i)];
+    for (const target of targets) {
+      if (target === editing || !draftIssues.some((i) => issueConcerns(i, targetPath(target)))) continue;
+      const ring = targetRing(draft.json, target);
+      if (ring && ring.length >= 2) features.push({ type: 'Feature', properties: { invalid: true, role: 'problem' }, geometry: ring.length >= 3 ? { type: 'Polygon', coordinates: [[...ring, ring[0]!]] } : { type: 'LineString', coordinates: ring } });
     }
     if (mode.kind !== 'draw') this.hover = null;
     this.features = { type: 'FeatureCollection', features };

@@ -324,25 +324,35 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
     el('p', { class: 'note', text: 'Draw on the map (no map tiles are needed). What you draw is written into the scenario: Run and Save use it. Check the drawing against the site survey; the local range-safety code decides the distances.' }),
     status,
     statusRow,
-    el('h3', { text: 'Pad' }),
-    padText,
-    el('div', { class: 'row' }, editor ? padButton : null),
-    padIssues,
-    el('h3', { text: 'Boundary' }),
-    boundaryText,
-    el('div', { class: 'row' }, editor ? boundaryDraw : null, editor ? boundaryEdit : null, boundaryRemove),
-    boundaryIssues,
-    el('h3', { text: 'Marked areas' }),
-    el('div', { class: 'row' }, el('label', { text: 'Kind of the next area', attrs: { for: kindId } }), nextKind, editor ? drawArea : null),
-    areaList,
-    el('div', { class: 'row' }, importButton, importInput),
-    el('p', { class: 'note', text: 'Imported polygons become areas: a placemark\u2019s name, and a kind (spectators, parking, road, building, water, other) and a head count given as "kind" and "people" in its data; one named "boundary" becomes the boundary.' }),
-    importStatus,
-    el('div', { class: 'row' }, groundButton, groundInput),
-    el('p', { class: 'note', text: 'Or drop the files anywhere on the page. They stay in this page only; keep them beside the saved scenario for the command line.' }),
-    terrainBox,
-    forecastBox,
+    section('Pad and boundary', [
+      el('h3', { text: 'Pad' }),
+      padText,
+      el('div', { class: 'row' }, editor ? padButton : null),
+      padIssues,
+      el('h3', { text: 'Boundary' }),
+      boundaryText,
+      el('div', { class: 'row' }, editor ? boundaryDraw : null, editor ? boundaryEdit : null, boundaryRemove),
+      boundaryIssues,
+    ]),
+    section('Terrain and forecast', [
+      el('div', { class: 'row' }, groundButton, groundInput),
+      el('p', { class: 'note', text: 'Or drop the files anywhere on the page. They stay in this page only; keep them beside the saved scenario for the command line.' }),
+      terrainBox,
+      forecastBox,
+    ]),
+    section('Marked areas', [
+      el('div', { class: 'row' }, el('label', { text: 'Kind of the next area', attrs: { for: kindId } }), nextKind, editor ? drawArea : null),
+      areaList,
+      el('div', { class: 'row' }, importButton, importInput),
+      el('p', { class: 'note', text: 'Imported polygons become areas: a placemark\u2019s name, and a kind (spectators, parking, road, building, water, other) and a head count given as "kind" and "people" in its data; one named "boundary" becomes the boundary.' }),
+      importStatus,
+    ]),
   );
+}
+
+/** A part of the tab the reader can fold away (all open at first). */
+function section(title: string, children: (Node | null)[]): HTMLElement {
+  return el('details', { class: 'site-section', attrs: { open: '' } }, el('summary', { text: title }), ...children);
 }
 
 function issuesNode(issues: readonly Issue[], path: string): HTMLElement {
