@@ -49,7 +49,7 @@ export class SiteEditor {
       map.addSource(SOURCE, { type: 'geojson', data: { type: 'FeatureCollection', features: [] } });
       const invalid: ExpressionSpecification = ['to-boolean', ['get', 'invalid']];
       map.addLayer({ id: 'site-edit-fill', type: 'fill', source: SOURCE, filter: ['==', ['geometry-type'], 'Polygon'], paint: { 'fill-color': ['case', invalid, BAD_COLOR, EDIT_COLOR], 'fill-opacity': 0.12 } });
-      map.addLayer({ id: 'site-edit-line', type: 'line', source: SOURCE, filter: ['in', ['geometry-type'], ['literal', ['Polygon', 'LineString']]], paint: { 'line-color': ['case', invalid, BAD_COLOR, EDIT_COLOR], 'line-width': 2.5, 'line-dasharray': [2, 1] } });
+      map.addLayer({ id: 'site-edit-line', type: 'line', source: SOURCE, filter: ['==', ['geometry-type'], 'LineString'], paint: { 'line-color': ['case', invalid, BAD_COLOR, EDIT_COLOR], 'line-width': 2.5, 'line-dasharray': [2, 1] } });
       map.addLayer({ id: 'site-edit-mid', type: 'circle', source: SOURCE, filter: ['==', ['get', 'role'], 'mid'], paint: { 'circle-radius': 4, 'circle-color': '#FFFFFF', 'circle-opacity': 0.85, 'circle-stroke-color': EDIT_COLOR, 'circle-stroke-width': 1.5 } });
       map.addLayer({ id: 'site-edit-corner', type: 'circle', source: SOURCE, filter: ['==', ['get', 'role'], 'corner'], paint: { 'circle-radius': 6, 'circle-color': ['case', ['get', 'selected'], EDIT_COLOR, '#FFFFFF'], 'circle-stroke-color': ['case', invalid, BAD_COLOR, EDIT_COLOR], 'circle-stroke-width': 2.5 } });
       this.render();
@@ -67,6 +67,14 @@ export class SiteEditor {
       this.finish();
     });
     map.on('mousemove', (e) => this.move(e));
+    // While a corner is dragged, the pointer is followed on the whole window (it may leave the
+    // canvas, and the map sends no mousemove of its own while a button is held).
+    window.addEventListener('mousemove', (e) => {
+      if (!this.drag) return;
+      const box = map.getContainer().getBoundingClientRect();
+      const at = map.unproject([e.clientX - box.left, e.clientY - box.top]);
+      this.dragTo([at.lng, at.lat]);
+    });
     map.on('mousedown', (e) => this.press(e));
     map.on('contextmenu', (e) => this.removeAt(e));
     window.addEventListener('mouseup', () => this.release());
@@ -76,7 +84,12 @@ export class SiteEditor {
   /** The features drawn for the polygon in hand (read by the browser tests too). */
   features: FeatureCollection = { type: 'FeatureCollection', features: [] };
 
+  private lastKind: SiteMode['kind'] = 'idle';
+
   private entered(mode: SiteMode): void {
+    const changed = mode.kind !== this.lastKind;
+    this.lastKind = mode.kind;
+    if (!changed) return this.render();
     this.drag = null;
     const busy = mode.kind !== 'idle';
     // Double-click closes a drawing instead of zooming.
@@ -151,16 +164,20 @@ export class SiteEditor {
       this.hover = [e.lngLat.lng, e.lngLat.lat];
       this.render();
     } else if (mode.kind === 'edit') {
-      if (this.drag) {
-        const corners = mode.corners.slice();
-        corners[this.drag.index] = [e.lngLat.lng, e.lngLat.lat];
-        this.drag.moved = true;
-        this.session.set({ ...mode, corners });
-      } else {
+      if (!this.drag) {
         const on = this.nearest(mode.corners, e.point) >= 0 || this.nearest(this.midpoints(mode.corners), e.point) >= 0;
         this.map.getCanvas().style.cursor = on ? 'move' : '';
       }
     }
+  }
+
+  private dragTo(at: LonLat): void {
+    const mode = this.session.mode;
+    if (!this.drag || mode.kind !== 'edit') return;
+    const corners = mode.corners.slice();
+    corners[this.drag.index] = at;
+    this.drag.moved = true;
+    this.session.set({ ...mode, corners });
   }
 
   private press(e: MapMouseEvent): void {
@@ -246,7 +263,9 @@ export class SiteEditor {
       const invalid = mode.kind === 'edit' && issues.some((i) => issueConcerns(i, path));
       const corners = mode.corners;
       if (mode.kind === 'edit' && corners.length >= 3) {
+        // The outline as a line of its own: maplibre leaves a self-crossing polygon's outline undrawn.
         features.push({ type: 'Feature', properties: { invalid }, geometry: { type: 'Polygon', coordinates: [[...corners, corners[0]!]] } });
+        features.push({ type: 'Feature', properties: { invalid }, geometry: { type: 'LineString', coordinates: [...corners, corners[0]!] } });
         this.midpoints(corners).forEach((p, i) => features.push({ type: 'Feature', properties: { role: 'mid', index: i, invalid }, geometry: { type: 'Point', coordinates: p } }));
       } else {
         const line = this.hover ? [...corners, this.hover] : corners;
@@ -262,7 +281,9 @@ export class SiteEditor {
     for (const target of targets) {
       if (target === editing || !draftIssues.some((i) => issueConcerns(i, targetPath(target)))) continue;
       const ring = targetRing(draft.json, target);
-      if (ring && ring.length >= 2) features.push({ type: 'Feature', properties: { invalid: true, role: 'problem' }, geometry: ring.length >= 3 ? { type: 'Polygon', coordinates: [[...ring, ring[0]!]] } : { type: 'LineString', coordinates: ring } });
+      if (!ring || ring.length < 2) continue;
+      features.push({ type: 'Feature', properties: { invalid: true, role: 'problem' }, geometry: { type: 'LineString', coordinates: [...ring, ring[0]!] } });
+      if (ring.length >= 3) features.push({ type: 'Feature', properties: { invalid: true, role: 'problem' }, geometry: { type: 'Polygon', coordinates: [[...ring, ring[0]!]] } });
     }
     if (mode.kind !== 'draw') this.hover = null;
     this.features = { type: 'FeatureCollection', features };

@@ -322,8 +322,8 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
     { class: 'panel-section site-panel', attrs: { 'aria-label': 'Site' } },
     mapNeeded,
     el('p', { class: 'note', text: 'Draw on the map (no map tiles are needed). What you draw is written into the scenario: Run and Save use it. Check the drawing against the site survey; the local range-safety code decides the distances.' }),
-    status,
-    statusRow,
+    // Kept in view while the tab scrolls: it says what the map expects now.
+    el('div', { class: 'site-sticky' }, status, statusRow),
     section('Pad and boundary', [
       el('h3', { text: 'Pad' }),
       padText,
