@@ -201,11 +201,15 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
       actions.editDocument((doc) => withoutArea(doc, index));
     });
     const corners = targetRing(store.get().draft.json, index);
+    // What the format holds but this list does not edit is said, not silently kept.
+    const holes = Array.isArray((area.geometry as { coordinates?: unknown } | undefined)?.coordinates) ? (area.geometry as { coordinates: unknown[] }).coordinates.length - 1 : 0;
+    const elsewhere = [area.density !== undefined ? `density ${String(area.density)}` : '', area.sheltered !== undefined ? `sheltered ${String(area.sheltered)}` : '', holes > 0 ? `${holes} ${holes === 1 ? 'hole' : 'holes'} in the outline` : ''].filter((t) => t !== '');
     return el(
       'li',
       { class: 'area-row', data: { areaIndex: String(index) } },
       el('div', { class: 'area-fields' }, el('label', { text: 'Name', attrs: { for: nameId } }), name, kind, el('label', { text: 'People', attrs: { for: peopleId } }), people),
       el('div', { class: 'row' }, el('span', { class: 'note', text: corners ? `${corners.length} corners` : 'not a polygon' }), editor ? edit : null, remove),
+      elsewhere.length > 0 ? el('p', { class: 'note', text: `Kept as the file gives them, edited in the file: ${elsewhere.join(', ')}.` }) : null,
       el('div', { class: 'site-issues', data: { areaIssues: String(index) } }),
     );
   };
