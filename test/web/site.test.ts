@@ -266,6 +266,11 @@ describe('site on the map', () => {
     // The profile table fits the panel at 800 px (it scrolls inside its own box, never the page sideways).
     expect(await page.evaluate(() => { const t = document.querySelector('[data-test="forecast-profile"]')!; return t.scrollWidth <= t.parentElement!.clientWidth + 1; })).toBe(true);
     expect(await runAndWait(page)).toBe('finished');
+    // The bytes are not kept over a reload: the page says so instead of dropping the scenario silently.
+    await page.reload();
+    await mapIdle(page);
+    await page.locator('[data-tab="setup"]').click();
+    expect(await page.locator('[data-test="refused"]').innerText()).toContain('keeps no forecast or terrain file over a reload');
   }, TEST_TIMEOUT);
 
   it('a GeoTIFF terrain loads, its contours are drawn on the map, and the run flies over it', async () => {
@@ -307,6 +312,8 @@ describe('site on the map', () => {
     await page.setViewportSize({ width: 360, height: 800 });
     await mapIdle(page);
     await page.screenshot({ path: join(session.shots, 'site-terrain-360.png'), fullPage: true });
+    await page.locator('[data-test="draw-area"]').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(session.shots, 'site-areas-360.png') });
     expect(await page.evaluate(() => window.__strewn!.scenario().hash)).not.toBe(hashBefore);
     expect(await runAndWait(page)).toBe('finished');
   }, TEST_TIMEOUT);

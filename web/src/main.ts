@@ -44,7 +44,7 @@ function boot(): void {
   const initial = initialWorkspace();
   const store = new Store({
     ...initial,
-    refused: null,
+    refused: initial.refused ?? null,
     documentVersion: 0,
     units: recallUnits(),
     run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },

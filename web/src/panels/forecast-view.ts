@@ -28,7 +28,7 @@ export function forecastProfileView(scenario: Scenario, units: UnitSystem): HTML
     'table',
     { class: 'forecast-table', data: { test: 'forecast-profile' } },
     el('caption', { text: `Wind by height above the pad (${rows.length} levels)` }),
-    el('thead', {}, el('tr', {}, el('th', { text: 'Height', attrs: { scope: 'col' } }), el('th', { text: 'Speed', attrs: { scope: 'col' } }), el('th', { text: 'From', attrs: { scope: 'col' } }), el('th', { text: 'Air', attrs: { scope: 'col' } }))),
+    el('thead', {}, el('tr', {}, el('th', { text: 'Height', attrs: { scope: 'col' } }), el('th', { text: 'Speed', attrs: { scope: 'col' } }), el('th', { text: 'From', attrs: { scope: 'col' } }), el('th', { text: 'Temperature', attrs: { scope: 'col' } }))),
     el(
       'tbody',
       {},
