@@ -205,7 +205,7 @@ export function vehicleEditor(getState: () => AppState, actions: Actions): Vehic
     }
   }).observe(viewBox);
 
-  const element = el('section', { class: 'vehicle-editor', attrs: { 'aria-label': 'What flies' } }, el('h2', { class: 'section-title', text: 'What flies' }), pointMassBox, figuresBox, viewBox, staleNote, groupsBox);
+  const element = el('section', { class: 'vehicle-editor', attrs: { 'aria-label': 'What flies' } }, el('h2', { class: 'section-title', text: 'What flies' }), pointMassBox, viewBox, figuresBox, staleNote, groupsBox);
   return { element, render, paths: () => [...rows.keys()] };
 }
 

@@ -16,10 +16,10 @@ import { dragWayOf, type DragWay } from './vehicle-fields.js';
 
 const isRecord = (x: unknown): x is Record<string, unknown> => x !== null && typeof x === 'object' && !Array.isArray(x);
 
-/** `si` as a quantity string in `unit`, four significant digits (a starting value, not a result). */
+/** `si` as a quantity string in `unit`, five significant digits (a drag carried over stays within 0.01 %). */
 export function quantityText(si: number, unitText: string, dimension: Dimension): string {
   const unit = unitOf(unitText, dimension);
-  return `${Number((si / unit.si).toPrecision(4))} ${unitText}`;
+  return `${Number((si / unit.si).toPrecision(5))} ${unitText}`;
 }
 
 const small = (system: UnitSystem) => (system === 'metric' ? 'mm' : 'in');
