@@ -259,6 +259,12 @@ describe('Setup tab: what flies', () => {
     expect(margin.si).toBeGreaterThan(1);
     expect(margin.si).toBeLessThan(2);
     expect(await page.locator('[data-test="run"]').isDisabled()).toBe(false);
+
+    // Another thrust curve opened on the page becomes the motor's: 100 N for 0.9 s between
+    // 0.1 s ramps has 100 N s by the trapezoid rule (closed form), as the engine integrates it.
+    await page.locator('input[aria-label="Thrust curve file (CSV)"]').setInputFiles({ name: 'flat-100.csv', mimeType: 'text/csv', buffer: Buffer.from('time_s,thrust_N\n0,0\n0.1,100\n1.0,100\n1.1,0\n') });
+    await expect.poll(() => page.locator('[data-test="motor-curve"]').innerText()).toContain('flat-100.csv');
+    expect(await page.locator('[data-test="motor-curve"]').innerText()).toContain('total impulse 100 N s over 1.10 s');
   }, TEST_TIMEOUT);
 
   it('adds a recovery stage that the run and the command line fly the same way', async () => {
@@ -278,7 +284,9 @@ describe('Setup tab: what flies', () => {
     await stage.locator('[data-test="stage-up"]').click();
     expect(await page.locator('[data-group="stage-1"] legend').innerText()).toBe('Recovery stage 2: stage 3');
     expect(await page.locator('[data-test="run"]').isDisabled()).toBe(false);
-    await setupShot(page, 'setup-three-stages', 800);
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.locator('[data-group="stage-1"]').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(session.shots, 'setup-three-stages-800.png') });
     expect(await runAndWait(page)).toBe('finished');
     const second = (await page.evaluate(() => JSON.parse(JSON.stringify(window.__strewn!.summary())))) as RunSummary;
     // From 300 m to 150 m at 12 instead of 22 m/s takes 150/12 − 150/22 = 5.7 s longer (steady

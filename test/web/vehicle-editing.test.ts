@@ -6,10 +6,11 @@ import { parseScenario } from '../../src/scenario/load.js';
 import { ScenarioError } from '../../src/scenario/errors.js';
 import { POINT_MASS_ROCKET_WARNING } from '../../src/scenario/warnings.js';
 import { stabilityFigures } from '../../src/physics/aero.js';
+import { MotorModel } from '../../src/physics/motor.js';
 import { attachedFileReader, valueAt, withValue, type ScenarioDocument } from '../../web/src/scenario/document.js';
 import { shownValue, writtenValue } from '../../web/src/scenario/field-values.js';
 import { vehicleFieldGroups, type VehicleField } from '../../web/src/scenario/vehicle-fields.js';
-import { addStage, addStartingShape, addTransition, moveEntry, removeEntry, removeShape, renameStage, setDragWay, setTrigger } from '../../web/src/scenario/vehicle-edits.js';
+import { addStage, addStartingShape, addTransition, moveEntry, removeEntry, removeShape, renameStage, setDragWay, setThrustFile, setTrigger } from '../../web/src/scenario/vehicle-edits.js';
 
 /**
  * The Setup tab's boxes for the shape, the motor and the recovery stages, against the scenario
@@ -144,5 +145,13 @@ describe('shape, motor and recovery boxes', () => {
     const t = parse(boattail).scenario.vehicle.shape!.transitions[0]!;
     expect(t.position + t.length).toBeCloseTo(v.shape!.length, 6);
     expect(t.aftDiameter).toBeLessThan(t.foreDiameter);
+  });
+
+  it('flies a thrust curve opened on the page, kept beside the scenario', () => {
+    const doc = setThrustFile(demo('club-rocket.json'), 'flat-100.csv', 'time_s,thrust_N\n0,0\n0.1,100\n1.0,100\n1.1,0\n');
+    expect(valueAt(doc.json, ['vehicle', 'motor', 'thrust'])).toBe('flat-100.csv');
+    expect(doc.files['motors/harrow-g150.csv']).toBeDefined();
+    // Trapezoid rule over the points: 5 + 90 + 5 = 100 N s (closed form).
+    expect(new MotorModel(parse(doc).scenario.vehicle.motor!).totalImpulse).toBeCloseTo(100, 12);
   });
 });
