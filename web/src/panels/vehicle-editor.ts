@@ -10,6 +10,7 @@ import { POINT_MASS_ROCKET_WARNING } from '../../../src/scenario/warnings.js';
 import type { Actions } from './actions.js';
 import { el, replaceChildren } from './dom.js';
 import { fieldRow, type FieldRow } from './field-row.js';
+import { issueList } from './issues.js';
 import { rocketFigures } from './rocket-figures.js';
 import { sideViewSvg } from './side-view.js';
 
@@ -31,6 +32,9 @@ export function vehicleEditor(getState: () => AppState, actions: Actions): Vehic
   const figuresBox = el('div', { class: 'rocket-summary', data: { test: 'rocket-summary' } });
   const pointMassBox = el('div', { class: 'warnings point-mass', data: { test: 'point-mass' } });
   const viewBox = el('figure', { class: 'side-view', data: { test: 'side-view' } });
+  // Warnings about what flies (a margin under 1 calibre, a Mach 0.8 flight) beside the figures too,
+  // so they are seen while the shape is edited; they also stay in the list at the top of the tab.
+  const vehicleWarnings = el('div', { class: 'warnings', data: { test: 'vehicle-warnings' } });
   const staleNote = el('p', { class: 'note', data: { test: 'figures-stale' }, text: 'The figures and the side view are those of the last valid scenario; fix the marked fields to update them.' });
   const groupsBox = el('div', { class: 'field-groups vehicle-groups' });
   const rows = new Map<string, FieldRow>();
@@ -168,6 +172,9 @@ export function vehicleEditor(getState: () => AppState, actions: Actions): Vehic
       drawView(state);
     }
     staleNote.hidden = state.draftIssues.length === 0;
+    const nearby = state.accepted.warnings.filter((w) => (w.path.startsWith('vehicle.') || w.path.startsWith('recovery') || w.path === 'launch.rail') && w.message !== POINT_MASS_ROCKET_WARNING);
+    replaceChildren(vehicleWarnings, ...(nearby.length > 0 ? [issueList(nearby)] : []));
+    vehicleWarnings.hidden = nearby.length === 0;
     showMotor(state);
 
     const v = state.accepted.scenario.vehicle;
@@ -205,7 +212,7 @@ export function vehicleEditor(getState: () => AppState, actions: Actions): Vehic
     }
   }).observe(viewBox);
 
-  const element = el('section', { class: 'vehicle-editor', attrs: { 'aria-label': 'What flies' } }, el('h2', { class: 'section-title', text: 'What flies' }), pointMassBox, viewBox, figuresBox, staleNote, groupsBox);
+  const element = el('section', { class: 'vehicle-editor', attrs: { 'aria-label': 'What flies' } }, el('h2', { class: 'section-title', text: 'What flies' }), pointMassBox, viewBox, figuresBox, vehicleWarnings, staleNote, groupsBox);
   return { element, render, paths: () => [...rows.keys()] };
 }
 

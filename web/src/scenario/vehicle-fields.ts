@@ -42,7 +42,7 @@ export const TRIGGERS = [
 export type DragWay = 'descentRate' | 'dragArea' | 'canopy';
 export const DRAG_WAYS: readonly { value: DragWay; label: string }[] = [
   { value: 'descentRate', label: 'descent rate' },
-  { value: 'dragArea', label: 'drag area Cd·A' },
+  { value: 'dragArea', label: 'drag area' },
   { value: 'canopy', label: 'canopy size' },
 ];
 
@@ -164,7 +164,7 @@ function stageGroups(json: unknown): VehicleGroup[] {
     ];
     if (trigger === 'altitude') fields.push(f([...r, 'altitude'], 'Altitude above the pad', 'length', undefined));
     if (trigger === 'time') fields.push(f([...r, 'time'], 'Time after launch', 'time', undefined));
-    fields.push(f([...r, 'delay'], 'Delay after the trigger', 'time', undefined, { optional: true, placeholder: '0' }));
+    fields.push(f([...r, 'delay'], 'Delay after the trigger', 'time', undefined, { optional: true, placeholder: 'none' }));
     fields.push({
       ...f([...r, 'dragWay'], 'Drag given as', 'number', undefined),
       kind: 'choice',
