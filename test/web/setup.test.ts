@@ -231,6 +231,13 @@ describe('Setup tab: what flies', () => {
     await setField(page, 'vehicle.shape.fins[0].position', '1100');
     expect(await page.locator('[data-test="run"]').isDisabled()).toBe(false);
     expect(await page.locator('[data-message-for="vehicle.shape.fins[0].position"]').innerText()).toBe('');
+
+    // A balance point moved aft to 0.90 m (CP at 0.938 m with these fins) leaves a margin under 1 calibre: a warning beside the
+    // figures (common practice, no source), not an error, so Run stays available.
+    expect(await page.locator('[data-test="vehicle-warnings"]').isVisible()).toBe(false);
+    await setField(page, 'vehicle.shape.cg', '900');
+    expect(await page.locator('[data-test="vehicle-warnings"]').innerText()).toMatch(/static margin at lift-off is 0\.\d+ calibres, under the 1 calibre/);
+    expect(await page.locator('[data-test="run"]').isDisabled()).toBe(false);
   }, TEST_TIMEOUT);
 
   it('warns about a rocket without a shape as check does, and adds a starting shape', async () => {
