@@ -102,6 +102,8 @@ describe('shape, motor and recovery boxes', () => {
       const asCanopy = setDragWay(doc, 1, 'canopy', accepted, system);
       const canopy = parse(asCanopy).scenario.recovery[1]!;
       expect(canopy.canopy!.drag).toBe(0.8);
+      const noted = parse(type(asCanopy, 'recovery[1].canopy', 'cross', system)).scenario.recovery[1]!;
+      expect(noted.canopy).toEqual({ ...canopy.canopy, note: 'cross' });
       expect(canopy.dragArea / before).toBeCloseTo(1, 3);
       // And back to a descent rate: 2 m g0 / (1.225 v²) = drag area (scenario format, "recovery").
       const back = setDragWay(asCanopy, 1, 'descentRate', parse(asCanopy).scenario, system);

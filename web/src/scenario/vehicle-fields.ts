@@ -179,6 +179,7 @@ function stageGroups(json: unknown): VehicleGroup[] {
     if (way === 'canopy') {
       fields.push(f([...r, 'diameter'], 'Canopy diameter', 'length', CANOPY));
       fields.push(f([...r, 'drag'], 'Drag coefficient for that diameter', 'number', undefined));
+      fields.push({ ...f([...r, 'canopy'], 'Canopy note (its kind, for reports)', 'number', undefined), kind: 'text', dimension: undefined, units: undefined, optional: true, placeholder: 'e.g. flat circular' });
     }
     const name = isRecord(stage) && typeof stage.name === 'string' ? stage.name : '';
     return { id: `stage-${i}`, kind: 'stage' as const, index: i, title: `Recovery stage ${i + 1}${name ? `: ${name}` : ''}`, fields };
