@@ -46,9 +46,8 @@ export class Controller implements Actions {
     this.applyDraft(withValue(this.store.get().draft, path, value));
   }
 
-  /** Any edit of the document as a whole (the site drawn on the map, an imported area). */
-  editDocument(edit: (draft: ScenarioDocument) => ScenarioDocument): void {
-    this.applyDraft(edit(this.store.get().draft));
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void {
+    this.applyDraft(change(this.store.get().draft));
   }
 
   /** Forecast and terrain files loaded for the scenario being edited (by name; see ground-files.ts). */

@@ -28,7 +28,7 @@ const EDIT_COLOR = '#1F4FA8';
 const BAD_COLOR = '#B3261E';
 
 export interface SiteEditorActions {
-  editDocument(edit: (draft: ScenarioDocument) => ScenarioDocument): void;
+  editDraft(edit: (draft: ScenarioDocument) => ScenarioDocument): void;
   movePad(lon: number, lat: number): void;
 }
 
@@ -148,8 +148,8 @@ export class SiteEditor {
       this.session.set({ ...mode, corners }, `${corners.length === 1 ? 'One corner' : `${corners.length} corners`} so far: an area needs at least three.`);
       return;
     }
-    if (mode.target === 'boundary') this.actions.editDocument((doc) => withRing(doc, 'boundary', corners));
-    else this.actions.editDocument((doc) => withNewArea(doc, { name: freshAreaName(doc.json), kind: this.nextKind }, corners));
+    if (mode.target === 'boundary') this.actions.editDraft((doc) => withRing(doc, 'boundary', corners));
+    else this.actions.editDraft((doc) => withNewArea(doc, { name: freshAreaName(doc.json), kind: this.nextKind }, corners));
     const state = this.store.get();
     const target: SiteTarget = mode.target === 'boundary' ? 'boundary' : rawAreas(state.draft.json).length - 1;
     const problem = state.draftIssues.find((i) => issueConcerns(i, targetPath(target)));
@@ -232,7 +232,7 @@ export class SiteEditor {
   }
 
   private commit(target: 'boundary' | number, corners: readonly LonLat[]): void {
-    this.actions.editDocument((doc) => withRing(doc, target, corners));
+    this.actions.editDraft((doc) => withRing(doc, target, corners));
   }
 
   private key(e: KeyboardEvent): void {

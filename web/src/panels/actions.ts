@@ -8,7 +8,9 @@ import type { EnvelopeFileName } from '../study/envelope-files.js';
 /** What the panels can ask the page to do; app/controller.ts carries these out. */
 export interface Actions {
   editField(path: FieldPath, value: unknown): void;
-  editDocument(edit: (draft: ScenarioDocument) => ScenarioDocument): void;
+  /** A change of the draft's structure (a stage added, a list reordered), validated like a field. */
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void;
+  /** Forecast and terrain files for the scenario being edited (Site tab, or dropped). */
   attachFiles(files: readonly File[]): Promise<void>;
   openFiles(files: readonly File[]): Promise<void>;
   openDemo(id: string): void;

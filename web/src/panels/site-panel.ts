@@ -67,7 +67,7 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
   const boundaryRemove = el('button', { text: 'Remove', attrs: { type: 'button' } });
   boundaryRemove.addEventListener('click', () => {
     session.set({ kind: 'idle' });
-    actions.editDocument(withoutBoundary);
+    actions.editDraft(withoutBoundary);
   });
   const boundaryIssues = el('div', { class: 'site-issues', data: { test: 'boundary-issues' } });
 
@@ -100,7 +100,7 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
         return;
       }
       session.set({ kind: 'idle' });
-      actions.editDocument((doc) => {
+      actions.editDraft((doc) => {
         let next = withAreas(doc, [...rawAreas(doc.json), ...found.areas]);
         if (found.boundary) next = withValue(next, ['site', 'boundary'], found.boundary);
         return next;
@@ -182,23 +182,23 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
   const areaRow = (area: Record<string, unknown>, index: number): HTMLElement => {
     const nameId = uniqueId('area-name');
     const name = el('input', { attrs: { id: nameId, type: 'text', autocomplete: 'off', value: typeof area.name === 'string' ? area.name : '' }, data: { test: 'area-name' } });
-    name.addEventListener('change', () => actions.editDocument((doc) => withAreaField(doc, index, 'name', name.value)));
+    name.addEventListener('change', () => actions.editDraft((doc) => withAreaField(doc, index, 'name', name.value)));
     const kind = el('select', { attrs: { 'aria-label': 'Kind' }, data: { test: 'area-kind' } }, ...AREA_KINDS.map((k) => el('option', { text: KIND_WORDS[k] ?? k, attrs: { value: k } })));
     kind.value = typeof area.kind === 'string' && (AREA_KINDS as readonly string[]).includes(area.kind) ? area.kind : 'other';
-    kind.addEventListener('change', () => actions.editDocument((doc) => withAreaField(doc, index, 'kind', kind.value)));
+    kind.addEventListener('change', () => actions.editDraft((doc) => withAreaField(doc, index, 'kind', kind.value)));
     const peopleId = uniqueId('area-people');
     const people = el('input', { attrs: { id: peopleId, type: 'text', inputmode: 'numeric', autocomplete: 'off', value: area.people === undefined ? '' : String(area.people), placeholder: area.density !== undefined ? 'by density' : '' }, data: { test: 'area-people' } });
     people.addEventListener('change', () => {
       const text = people.value.trim();
       const value = text === '' ? undefined : Number.isFinite(Number(text)) ? Number(text) : text;
-      actions.editDocument((doc) => withAreaField(doc, index, 'people', value));
+      actions.editDraft((doc) => withAreaField(doc, index, 'people', value));
     });
     const edit = el('button', { text: 'Edit corners', attrs: { type: 'button' }, data: { test: 'edit-area' } });
     edit.addEventListener('click', () => startEdit(index));
     const remove = el('button', { text: 'Delete', attrs: { type: 'button' }, data: { test: 'delete-area' } });
     remove.addEventListener('click', () => {
       session.set({ kind: 'idle' });
-      actions.editDocument((doc) => withoutArea(doc, index));
+      actions.editDraft((doc) => withoutArea(doc, index));
     });
     const corners = targetRing(store.get().draft.json, index);
     // What the format holds but this list does not edit is said, not silently kept.
@@ -259,7 +259,7 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
     if (forecast) {
       const stop = el('button', { text: 'Keep this wind typed in, without the file', attrs: { type: 'button' } });
       stop.title = 'Writes the forecast\u2019s speed, direction and profile into weather.wind and removes weather.forecast';
-      stop.addEventListener('click', () => actions.editDocument((doc) => withoutForecast(doc, state)));
+      stop.addEventListener('click', () => actions.editDraft((doc) => withoutForecast(doc, state)));
       forecastParts.push(el('div', { class: 'row' }, stop));
     }
     forecastParts.push(issuesNode(state.draftIssues, 'weather.forecast'));
@@ -285,7 +285,7 @@ export function sitePanel(store: Store, actions: Actions, parts: SiteParts): HTM
     const id = uniqueId('use-forecast-time');
     const select = el('select', { attrs: { id } }, ...times.times.map((t) => el('option', { text: isoTime(t), attrs: { value: isoTime(t) } })));
     const use = el('button', { text: `Use ${file} for the wind`, attrs: { type: 'button' }, data: { test: 'use-forecast' } });
-    use.addEventListener('click', () => actions.editDocument((doc) => withForecast(doc, file, select.value)));
+    use.addEventListener('click', () => actions.editDraft((doc) => withForecast(doc, file, select.value)));
     return el('div', { class: 'row' }, el('label', { text: 'at', attrs: { for: id } }), select, use);
   };
 
