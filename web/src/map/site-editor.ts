@@ -1,4 +1,4 @@
-import type { ExpressionSpecification, GeoJSONSource, Map as MapLibreMap, MapMouseEvent } from 'maplibre-gl';
+import type { ExpressionSpecification, GeoJSONSource, Map as MapLibreMap, MapMouseEvent, MapTouchEvent } from 'maplibre-gl';
 import type { Feature, FeatureCollection } from 'geojson';
 import type { Store } from '../app/store.js';
 import type { ScenarioDocument } from '../scenario/document.js';
@@ -78,6 +78,16 @@ export class SiteEditor {
     map.on('mousedown', (e) => this.press(e));
     map.on('contextmenu', (e) => this.removeAt(e));
     window.addEventListener('mouseup', () => this.release());
+    // A finger drags a corner as the mouse does (a tap is a click, which draws and places).
+    map.on('touchstart', (e) => e.points.length === 1 && this.press(e));
+    window.addEventListener('touchmove', (e) => {
+      const touch = e.touches[0];
+      if (!this.drag || !touch) return;
+      const box = map.getContainer().getBoundingClientRect();
+      const at = map.unproject([touch.clientX - box.left, touch.clientY - box.top]);
+      this.dragTo([at.lng, at.lat]);
+    });
+    window.addEventListener('touchend', () => this.release());
     document.addEventListener('keydown', (e) => this.key(e));
   }
 
@@ -180,9 +190,9 @@ export class SiteEditor {
     this.session.set({ ...mode, corners });
   }
 
-  private press(e: MapMouseEvent): void {
+  private press(e: MapMouseEvent | MapTouchEvent): void {
     const mode = this.session.mode;
-    if (mode.kind !== 'edit' || e.originalEvent.button !== 0) return;
+    if (mode.kind !== 'edit' || ('button' in e.originalEvent && e.originalEvent.button !== 0)) return;
     const corner = this.nearest(mode.corners, e.point);
     if (corner >= 0) {
       // Taking a handle must not pan the map.
