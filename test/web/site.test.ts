@@ -317,4 +317,29 @@ describe('site on the map', () => {
     expect(await page.evaluate(() => window.__strewn!.scenario().hash)).not.toBe(hashBefore);
     expect(await runAndWait(page)).toBe('finished');
   }, TEST_TIMEOUT);
+
+  it('the Site tab fits at 360, 800 and 1440 px with a forecast and an area being edited (no box wider than its panel)', async () => {
+    const page = await session.open();
+    await openSite(page);
+    await page.locator('[data-test="ground-files-input"]').setInputFiles(GFS);
+    await page.locator('[data-test="use-forecast"]').click();
+    await expect.poll(() => page.locator('[data-test="forecast-view"]').count(), { timeout: 20_000 }).toBe(1);
+    await page.locator('[data-area-index="0"] [data-test="edit-area"]').click();
+    for (const width of [360, 800, 1440]) {
+      await page.setViewportSize({ width, height: 900 });
+      await mapIdle(page);
+      const overflow = await page.evaluate(() => {
+        const out: string[] = [];
+        const root = document.querySelector('.tab-panel:not([hidden])')!;
+        for (const node of [root, ...Array.from(root.querySelectorAll('table, .row, .area-row, .area-fields, .site-status, details'))]) {
+          if (node instanceof HTMLElement && node.offsetParent !== null && node.scrollWidth > node.clientWidth + 1) out.push(`${node.tagName}.${node.className} ${node.scrollWidth} > ${node.clientWidth}`);
+        }
+        for (const t of Array.from(root.querySelectorAll('table'))) if (t.getBoundingClientRect().right > root.getBoundingClientRect().right + 1) out.push('table sticks out');
+        if (document.documentElement.scrollWidth > document.documentElement.clientWidth + 1) out.push('page scrolls sideways');
+        return out;
+      });
+      expect(overflow, `at ${width} px`).toEqual([]);
+      await page.screenshot({ path: join(session.shots, `site-edit-${width}.png`) });
+    }
+  }, TEST_TIMEOUT);
 });
