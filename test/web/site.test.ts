@@ -62,6 +62,23 @@ async function pixelGap(page: Page, position: number[], clicked: Point): Promise
   return Math.hypot(p.x - clicked.x, p.y - clicked.y);
 }
 
+/** Saves the page's scenario beside `inputs` (copied in) and runs the command line on it. */
+async function cliOnSaved(page: Page, name: string, inputs: string[]): Promise<RunSummary> {
+  const saved = await savedScenario(page, session.work);
+  const file = join(session.work, `${name}.json`);
+  writeFileSync(file, JSON.stringify(saved, null, 2));
+  cpSync(join(PROJECT, 'scenarios', 'motors'), join(session.work, 'motors'), { recursive: true });
+  for (const input of inputs) if (dirname(input) !== session.work) cpSync(input, join(session.work, input.split('/').pop()!));
+  return JSON.parse(execFileSync(process.execPath, [join(PROJECT, 'dist/src/cli/main.js'), 'run', file, '--json', '--out', join(session.work, `${name}-out`), '--force'], { cwd: PROJECT, encoding: 'utf8' })) as RunSummary;
+}
+
+/** Page and command line on one file: the same hits per area, the farthest landing within 1e-6 m (DEVELOPERS.md: ~1e-8 m apart). */
+function expectSameFindings(web: RunSummary, cli: RunSummary): void {
+  expect(web.scenarioHash).toBe(cli.scenarioHash);
+  expect(web.areas.map((a) => [a.name, a.hits])).toEqual(cli.areas.map((a) => [a.name, a.hits]));
+  expect(Math.abs(web.farthestLanding!.distance_m - cli.farthestLanding!.distance_m)).toBeLessThan(1e-6);
+}
+
 describe('site on the map', () => {
   it('a click on the map places the pad, and the saved scenario holds it', async () => {
     const page = await session.open();
@@ -266,6 +283,7 @@ describe('site on the map', () => {
     // The profile table fits the panel at 800 px (it scrolls inside its own box, never the page sideways).
     expect(await page.evaluate(() => { const t = document.querySelector('[data-test="forecast-profile"]')!; return t.scrollWidth <= t.parentElement!.clientWidth + 1; })).toBe(true);
     expect(await runAndWait(page)).toBe('finished');
+    expectSameFindings(await summaryOf(page), await cliOnSaved(page, 'forecast', [GFS]));
     // The bytes are not kept over a reload: the page says so instead of dropping the scenario silently.
     await page.reload();
     await mapIdle(page);
@@ -316,6 +334,7 @@ describe('site on the map', () => {
     await page.screenshot({ path: join(session.shots, 'site-areas-360.png') });
     expect(await page.evaluate(() => window.__strewn!.scenario().hash)).not.toBe(hashBefore);
     expect(await runAndWait(page)).toBe('finished');
+    expectSameFindings(await summaryOf(page), await cliOnSaved(page, 'terrain', [path]));
   }, TEST_TIMEOUT);
 
   it('the Site tab fits at 360, 800 and 1440 px with a forecast and an area being edited (no box wider than its panel)', async () => {
