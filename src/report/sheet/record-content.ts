@@ -25,6 +25,7 @@ import type { RiskSummary } from '../../risk/index.js';
 import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from '../format-number.js';
 import { unprintableCount } from './winansi.js';
 import { sideView } from './side-view.js';
+import { WORDS } from '../symbols.js';
 import type { UnitSystem } from '../format-number.js';
 
 export interface Column {
@@ -81,10 +82,10 @@ function riskLinesTable(risk: RiskSummary, u: UnitFormatter): Block {
     kind: 'table',
     id: 'risk-lines',
     columns: [
-      { title: 'Individual-risk line', weight: 1.2 },
+      { title: 'Risk line', weight: 1.2 },
       { title: 'Area inside', weight: 1.05, align: 'right' },
       { title: 'Reaches', weight: 0.9, align: 'right' },
-      { title: 'Resolved by the samples?', weight: 2, align: 'right' },
+      { title: 'Resolved by samples?', weight: 2, align: 'right' },
     ],
     rows: risk.lines.map((l) => [
       smallRate(l.level),
@@ -99,8 +100,8 @@ function riskLinesTable(risk: RiskSummary, u: UnitFormatter): Block {
 function harmText(risk: RiskSummary, u: UnitFormatter): string {
   const st = risk.settings;
   const harm = st.casualtyEnergy_J !== null
-    ? `casualty at ${energy(st.casualtyEnergy_J, u)} of impact energy or more`
-    : `casualty chance by impact energy from the scenario's table (${st.casualtyProbability?.energy_J.length ?? 0} rows)`;
+    ? `a casualty within the casualty area (by impact angle) at ${energy(st.casualtyEnergy_J, u)} or more`
+    : `casualty chance within the casualty area (by impact angle) by impact energy, from the scenario's table (${st.casualtyProbability?.energy_J.length ?? 0} rows)`;
   return `${harm}; person ${u.shortLength(st.personRadius_m)} radius, ${u.shortLength(st.personHeight_m)} tall; object radius ${u.diameter(st.objectRadius_m)} (${st.objectRadiusFrom})`;
 }
 
@@ -396,8 +397,8 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       columns: [
         { title: 'Region holding', weight: 1.25 },
         { title: 'Area', weight: 1, align: 'right' },
-        { title: 'Farthest from the pad', weight: 1.1, align: 'right' },
-        { title: 'Samples between it and the level inside', weight: 1.75, align: 'right' },
+        { title: 'Reaches', weight: 1.1, align: 'right' },
+        { title: 'Samples in its band', weight: 1.75, align: 'right' },
       ],
       rows: s.contours.map((c) => [
         `${levelText(c.level)} of landings`,
@@ -421,7 +422,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
           label: 'Keep-out zone',
           value:
             `${u.area(k.area_m2)}, reaching ${u.length(k.maxDistance_m)} from the pad; landings outside it: ${percent(s.keepOut.outsideShare)} of flights (95 % bound ${percent(s.keepOut.outsideUpper95)}); ` +
-            `zone outside the site: ${boundaryShare}; made of: ${k.parts.map((p) => keepOutPart(p, u)).join(', ')}`,
+            `zone outside the site: ${boundaryShare}; made of the ${WORDS.keepOutMadeOf(k.parts, levelText(k.level), k.margin_m > 0 ? u.length(k.margin_m) : null)} (parts in keepout.geojson)`,
         },
       ],
     });
@@ -483,7 +484,7 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       blocks.push({
         kind: 'text',
         font: 'italic',
-        text: `* Not a compliance figure: people spread evenly over the area; all modes; one-sided 95 % bound. Harm: ${model}; casualty area from the impact angle.`,
+        text: `* Not a compliance figure: people spread evenly; all modes; one-sided 95 % bound. Harm: ${model}.`,
       });
     }
     harmShown = anyPeople && risk !== undefined;
@@ -498,26 +499,23 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     blocks.push({ kind: 'text', font: 'italic', text: sensitivityNote(sensitivity.method, sensitivity.inputs.length - shown) });
   }
 
-  // The warnings and what reproduces the run beside the signatures: the signed record names
-  // exactly what was assessed and what was known against it.
+  // The warnings beside the signatures, and under them what reproduces the run (full width: the
+  // hash must not break): the signed record names what was assessed and what was known against it.
   const warnings = [...replacedCharacterNote(input), ...s.warnings, ...s.scenarioWarnings];
-  const left: Block[] = [];
+  const signOff: Block[] = [{ kind: 'heading', text: 'Review and sign-off' }, { kind: 'signoff' }];
   if (warnings.length > 0) {
     const shown = warnings.slice(0, limits.warnings);
     if (warnings.length > shown.length) shown.push(`${warnings.length - shown.length} more in summary.json`);
-    left.push({ kind: 'heading', text: 'Warnings' }, { kind: 'bullets', items: shown });
+    blocks.push({ kind: 'columns', columns: [{ weight: 1.1, blocks: [{ kind: 'heading', text: 'Warnings' }, { kind: 'bullets', items: shown }] }, { weight: 1, blocks: signOff }] });
+  } else {
+    blocks.push(...signOff);
   }
-  left.push(
-    { kind: 'heading', text: 'Reproducibility' },
-    {
-      kind: 'rows',
-      rows: [
-        { label: 'Scenario hash', value: s.scenarioHash, font: 'mono' },
-        { label: 'Samples and seed', value: `${grouped(s.samples)} samples, seed ${s.seed}` },
-        { label: 'Program', value: `strewn ${s.version}; computed ${dateText(review.computedAt)}` },
-      ],
-    },
-  );
-  blocks.push({ kind: 'columns', columns: [{ weight: 1.1, blocks: left }, { weight: 1, blocks: [{ kind: 'heading', text: 'Review and sign-off' }, { kind: 'signoff' }] }] });
+  blocks.push({
+    kind: 'rows',
+    rows: [
+      { label: 'Scenario hash', value: s.scenarioHash, font: 'mono' },
+      { label: 'Reproduce with', value: `${grouped(s.samples)} samples, seed ${s.seed}; strewn ${s.version}, computed ${dateText(review.computedAt)}` },
+    ],
+  });
   return blocks;
 }
