@@ -6,7 +6,8 @@ import { buildSheet } from '../../src/report/sheet/index.js';
 import type { PathShape, Shape } from '../../src/report/sheet/display-list.js';
 import { unitFormatter, smallRate, grouped, significant } from '../../src/report/format-number.js';
 import { bearingText } from '../../src/report/sheet/compass.js';
-import { poppler, runDemo } from './sheet-helpers.js';
+import { pdfPages, poppler, runDemo } from './sheet-helpers.js';
+import { editedScenario, strewn, tempDir } from '../cli/helpers.js';
 
 /**
  * The record page as a reader gets it (text by poppler, an independent PDF reader) carries the
@@ -140,4 +141,28 @@ describe('record pages of every demo', () => {
       expect(find(sheet.pages[1]!.shapes, 'side-view') !== undefined).toBe(input.summary.stability !== undefined);
     });
   }
+});
+
+describe('record page with risk criteria given', () => {
+  it('judges each area and the total against them as summary.json does ("under / over your criterion", never a verdict)', () => {
+    const path = editedScenario('club-rocket.json', (json) => {
+      // Invented criteria of the size published range-safety practice uses (from memory): 1e-6 and 1e-4 per flight.
+      json.risk = { ...(json.risk ?? {}), criteria: { individual: 1e-6, collective: 1e-4 } };
+    });
+    const out = join(tempDir(), 'out');
+    const r = strewn(['run', path, '--out', out, '--samples', '300', '--quiet', '--workers', '1']);
+    expect(r.status, r.stderr).toBe(0);
+    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    const risk = summary.risk;
+    const text = squash(poppler('pdftotext', ['-layout', '-f', '2', '-l', '2', join(out, 'sheet.pdf'), '-'])).replace(/\s+/g, '');
+    const has = (t: string) => expect(text).toContain(t.replace(/\s+/g, ''));
+    for (const a of risk.areas) {
+      expect(a.individualCriterion).not.toBeNull();
+      has(`${smallRate(a.maxIndividualRisk)} (${a.individualCriterion.startsWith('under') ? 'under' : 'over'})`);
+    }
+    has(`collective criterion 1.0e-4: total ${risk.total.collectiveCriterion} (bound ${risk.total.collectiveCriterionUpper95})`);
+    has('individual criterion 1.0e-6: judged per area');
+    expect(text).not.toContain('nocriteriagiven');
+    expect(pdfPages(join(out, 'sheet.pdf'))).toBe(2);
+  });
 });
