@@ -59,12 +59,8 @@ async function legendBox(page: Page): Promise<{ x: number; y: number; width: num
 const inside = (p: { x: number; y: number }, r: { x: number; y: number; width: number; height: number }) => p.x >= r.x && p.x <= r.x + r.width && p.y >= r.y && p.y <= r.y + r.height;
 
 describe('one look at 360, 800 and 1440 px', () => {
-    // KNOWN REGRESSION (open in issue 16): since the Risk layer and its findings tables joined the
-    // page, the risk tables overflow the Findings panel at 800 px, the legend's summary sits under
-    // the top bar at 360 and 1440 px, and no contour label is placed at zoom 12.5. Skipped until
-    // the layout takes the risk panels in; the checks themselves stay as written.
   for (const width of [360, 800, 1440]) {
-    it.skip(
+    it(
       `fits every panel at ${width} px, and keeps the legend off the zone's label`,
       async () => {
         const page = await openAt(width);
@@ -202,11 +198,7 @@ describe('export, print, undo and labels', () => {
     TIMEOUT,
   );
 
-    // KNOWN REGRESSION (open in issue 16): since the Risk layer and its findings tables joined the
-    // page, the risk tables overflow the Findings panel at 800 px, the legend's summary sits under
-    // the top bar at 360 and 1440 px, and no contour label is placed at zoom 12.5. Skipped until
-    // the layout takes the risk panels in; the checks themselves stay as written.
-  it.skip(
+  it(
     'thins the contour labels when the cloud is small on the screen',
     async () => {
       const page = await openAt(1440);
