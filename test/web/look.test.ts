@@ -1,7 +1,8 @@
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { mapIdle, runAndWait, setField, workspaceSession } from './harness.js';
+import { PROJECT, mapIdle, runAndWait, setField, workspaceSession } from './harness.js';
 
 /**
  * One look on every screen: the workspace at 360, 800 and 1440 px wide. At each width every
@@ -124,7 +125,72 @@ describe('one look at 360, 800 and 1440 px', () => {
   }
 });
 
+/** Opens a scenario file through the page's file picker, as a user would. */
+async function openScenario(page: Page, name: string, scenario: unknown): Promise<void> {
+  await page.locator('[data-tab="setup"]').click();
+  await page.locator('#scenario-file-input').setInputFiles({ name, mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(scenario)) });
+  await expect.poll(() => page.evaluate(() => window.__strewn!.scenario().name)).toBe((scenario as { name: string }).name);
+}
+
+const pageUnits = (page: Page) => page.evaluate(() => (document.querySelector<HTMLInputElement>('#units-imperial')!.checked ? 'imperial' : 'metric'));
+
+/** The texts of an SVG drawing, one per element, in document order. */
+const svgTexts = (svg: string) => [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]!);
+
 describe('export, print, undo and labels', () => {
+  it(
+    'takes its units and paper from the scenario\'s run.units and run.paper, and draws map.svg in the page\'s units',
+    async () => {
+      const page = await openAt(1440);
+      expect(await pageUnits(page)).toBe('metric');
+      const shell = JSON.parse(readFileSync(join(PROJECT, 'scenarios', 'display-shell.json'), 'utf8'));
+      // A scenario that names imperial units is shown in them, on Letter (the paper follows the
+      // units when the scenario names none; common practice, no source).
+      await openScenario(page, 'imperial.json', { ...shell, name: 'Shell, imperial', run: { ...shell.run, samples: 200, units: 'imperial' } });
+      expect(await pageUnits(page)).toBe('imperial');
+      expect(await runAndWait(page)).toBe('finished');
+      await page.locator('[data-tab="findings"]').click();
+      expect(await page.locator('[data-finding="farthest"]').innerText()).toMatch(/\d ft/);
+      await page.locator('[data-tab="files"]').click();
+      expect(await page.locator('[data-export="sheet"]').innerText()).toContain('imperial, US Letter');
+      // map.svg is the sheet's map page redrawn in the page's units and paper (612 × 792 pt is
+      // US Letter, 595.28 × 841.89 pt is A4: ISO 216 and ANSI/ASME Y14.1).
+      const mapSvg = async () => {
+        const [file] = await Promise.all([page.waitForEvent('download'), page.locator('[data-export="map.svg"]').click()]);
+        const path = join(session.work, file.suggestedFilename());
+        await file.saveAs(path);
+        return { name: file.suggestedFilename(), svg: readFileSync(path, 'utf8') };
+      };
+      const imperial = await mapSvg();
+      expect(imperial.name).toBe('map-imperial-letter.svg');
+      expect(imperial.svg).toMatch(/<svg[^>]* width="612pt" height="792pt"/);
+      const imperialTexts = svgTexts(imperial.svg);
+      expect(imperialTexts.some((t) => /region \+ [\d,]+ ft/.test(t)), 'zone label in feet').toBe(true);
+      expect(imperialTexts.filter((t) => /\d m$/.test(t)), 'labels in metres on an imperial map').toEqual([]);
+      // The switch at the top still decides; the paper follows it.
+      await page.locator('label[for="units-metric"]').click();
+      const metric = await mapSvg();
+      expect(metric.name).toBe('map-metric-a4.svg');
+      expect(metric.svg).toMatch(/<svg[^>]* width="595.2\d*pt" height="841.8\d*pt"/);
+      expect(svgTexts(metric.svg).some((t) => /region \+ [\d,]+ m$/.test(t)), 'zone label in metres').toBe(true);
+      expect(svgTexts(metric.svg).filter((t) => /\d ft$/.test(t)), 'labels in feet on a metric map').toEqual([]);
+
+      // A scenario's own paper wins over the one the units suggest.
+      await openScenario(page, 'letter.json', { ...shell, name: 'Shell, metric on Letter', run: { ...shell.run, units: 'metric', paper: 'letter' } });
+      expect(await pageUnits(page)).toBe('metric');
+      await page.locator('[data-tab="files"]').click();
+      // (No run yet: the sheet's row is hidden, its words already follow.)
+      expect(await page.locator('[data-export="sheet"]').textContent()).toContain('metric, US Letter');
+      expect(await page.locator('#sheet-paper option[value="auto"]').textContent()).toContain('US Letter');
+      // A scenario that names no units leaves the page's choice alone.
+      await page.locator('label[for="units-imperial"]').click();
+      await openScenario(page, 'plain.json', { ...shell, name: 'Shell, no units named' });
+      expect(await pageUnits(page)).toBe('imperial');
+      expect(await page.locator('[data-export="sheet"]').textContent()).toContain('imperial, US Letter');
+    },
+    TIMEOUT,
+  );
+
   it(
     'offers one review-sheet button in the page units and paper, and prints the map',
     async () => {
