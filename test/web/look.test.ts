@@ -211,7 +211,10 @@ describe('export, print, undo and labels', () => {
       const [file] = await Promise.all([page.waitForEvent('download'), button.click()]);
       expect(file.suggestedFilename()).toBe('sheet-imperial-a4.pdf');
 
-      // The browser's print: the map as drawn, captured before printing (not a blank canvas).
+      // The browser's print: the map as drawn, captured before printing (not a blank canvas), with
+      // the legend open in print even when the reader had folded it on the screen.
+      await page.locator('[data-test="legend"] summary').click();
+      expect((await legendBox(page)).open).toBe(false);
       await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
       await page.emulateMedia({ media: 'print' });
       const picture = await page.evaluate(async () => {
@@ -233,9 +236,27 @@ describe('export, print, undo and labels', () => {
       expect(picture.colours).toBeGreaterThan(20);
       expect(picture.shown).toBe(true);
       expect(picture.note).not.toBe('none');
+      // The legend is printed open, whole, inside the map's frame and clear of the wind card.
+      const printedLegend = await legendBox(page);
+      expect(printedLegend.open).toBe(true);
+      const frames = await page.evaluate(() => {
+        const box = (selector: string) => {
+          const r = document.querySelector(selector)!.getBoundingClientRect();
+          return { x: r.x, y: r.y, width: r.width, height: r.height };
+        };
+        const legend = document.querySelector<HTMLElement>('[data-test="legend"]')!;
+        return { map: box('.map-area'), wind: box('.wind-card'), legendCut: legend.scrollHeight > legend.clientHeight + 1 };
+      });
+      const corners = [[printedLegend.x, printedLegend.y], [printedLegend.x + printedLegend.width, printedLegend.y + printedLegend.height]] as const;
+      for (const [x, y] of corners) expect(inside({ x, y }, { ...frames.map, x: frames.map.x - 1, y: frames.map.y - 1, width: frames.map.width + 2, height: frames.map.height + 2 }), `printed legend (${printedLegend.corner}) within the map`).toBe(true);
+      const apart = printedLegend.y >= frames.wind.y + frames.wind.height || printedLegend.y + printedLegend.height <= frames.wind.y || printedLegend.x >= frames.wind.x + frames.wind.width || printedLegend.x + printedLegend.width <= frames.wind.x;
+      expect(apart, 'printed legend clear of the wind card').toBe(true);
+      expect(frames.legendCut, 'printed legend cut short').toBe(false);
       await page.screenshot({ path: join(session.shots, 'look-print.png') });
       await page.pdf({ path: join(session.work, 'printed-page.pdf'), format: 'A4' });
       await page.emulateMedia({ media: 'screen' });
+      await page.evaluate(() => window.dispatchEvent(new Event('afterprint')));
+      expect((await legendBox(page)).open, 'the reader\'s fold comes back after printing').toBe(false);
     },
     TIMEOUT,
   );
