@@ -86,6 +86,9 @@ describe('one look at 360, 800 and 1440 px', () => {
         }
         const opened = await legendBox(page);
         expect(opened.open).toBe(true);
+        // Open, it stays inside the map (its list scrolls), so its fold control is never under the top bar.
+        const mapBox = (await page.locator('#map').boundingBox())!;
+        expect(opened.y >= mapBox.y - 1 && opened.y + opened.height <= mapBox.y + mapBox.height + 1, `legend ${JSON.stringify(opened)} within the map ${JSON.stringify(mapBox)}`).toBe(true);
         if (width >= 800) expect(inside(await keepOutLabelPoint(page), opened), `legend (${opened.corner}) over the zone label`).toBe(false);
         await page.screenshot({ path: join(session.shots, `look-${width}-legend-open.png`), fullPage: width < 720 });
         await page.locator('[data-test="legend"] summary').click();
