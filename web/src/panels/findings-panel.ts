@@ -152,7 +152,12 @@ function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => stri
   out.push(figures);
   out.push(octantTable(`Individual risk stays under ${smallRate(r.standingLevel)} beyond this distance from the pad (${u.length.label})${r.standingResolved ? '' : '; line not resolved by the samples'}`, 'standing', r.standingDistance_m, u));
   out.push(
-    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Known from the samples?'], r.lines.map((l) => [smallRate(l.level), area(l.area_m2), inUnit(l.maxDistance_m, u.length), l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`])),
+    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Resolved by the samples?'], r.lines.map((l) => [
+      smallRate(l.level),
+      area(l.area_m2),
+      inUnit(l.maxDistance_m, u.length),
+      l.resolved ? 'yes' : el('span', {}, 'no', el('span', { class: 'cell-note', text: `about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed` })),
+    ])),
   );
   if (r.areas.length > 0) {
     out.push(
