@@ -157,7 +157,8 @@ export function offlineStyle(): StyleSpecification {
     },
     { id: 'basemap-label', type: 'symbol', source: SOURCES.basemapLabels, layout: label(11, { 'text-letter-spacing': 0.04 }), paint: { ...halo, 'text-color': '#5B6B45' } },
     { id: 'ring-label', type: 'symbol', source: SOURCES.ringLabels, layout: label(11, { 'text-offset': [0, -0.6] }), paint: { ...halo, 'text-color': RINGS.color } },
-    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false, 'text-max-width': 22 }), paint: { ...halo, 'text-color': '#1A1A1A' } },
+    // A marked area's label (its chance) moves beside the area when a higher label covers its centre.
+    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false, 'text-max-width': 22, 'text-variable-anchor': ['center', 'top', 'bottom', 'left', 'right'], 'text-radial-offset': 0.9, 'text-justify': 'auto' }), paint: { ...halo, 'text-color': '#1A1A1A' } },
     { id: 'track-label', type: 'symbol', source: SOURCES.trackLabels, layout: label(11, { 'text-anchor': 'bottom', 'text-offset': [0, -0.5] }), paint: { ...halo, 'text-color': TRACK.color } },
     { id: 'track-apogee', type: 'circle', source: SOURCES.trackLabels, paint: { 'circle-color': '#FFFFFF', 'circle-radius': 4, 'circle-stroke-color': TRACK.color, 'circle-stroke-width': 2 } },
     // Symbol layers higher in this list are placed first and win a collision: the zone's label, then
