@@ -163,9 +163,8 @@ export function offlineStyle(): StyleSpecification {
     { id: 'track-apogee', type: 'circle', source: SOURCES.trackLabels, paint: { 'circle-color': '#FFFFFF', 'circle-radius': 4, 'circle-stroke-color': TRACK.color, 'circle-stroke-width': 2 } },
     // Symbol layers higher in this list are placed first and win a collision: the zone's label, then
     // the contour labels, then the risk labels (the legend names every line, so a label left out
-    // on a small cloud loses no meaning).
-    // The risk lines nest around the same cloud as the probability regions, whose labels sit at the
-    // tops too: a risk label takes the first side of its point that is free.
+    // on a small cloud loses no meaning). The risk lines nest around the same cloud as the
+    // probability regions, whose labels sit at the tops too: a risk label takes a free side.
     { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-variable-anchor': ['left', 'right', 'top-left', 'top-right', 'bottom-left', 'bottom-right'], 'text-radial-offset': 0.5, 'text-justify': 'auto', 'text-padding': 3 }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     {
       id: 'contour-label',

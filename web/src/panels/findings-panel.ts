@@ -143,7 +143,7 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
 function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => string): HTMLElement[] {
   const out: HTMLElement[] = [];
   const st = r.settings;
-  const harm = st.casualtyEnergy_J !== null ? `casualty from ${significant(st.casualtyEnergy_J, 3)} J` : 'casualty chance by energy, your table';
+  const harm = st.casualtyEnergy_J !== null ? `casualty at ${significant(st.casualtyEnergy_J, 3)} J or more` : 'casualty chance by energy, your table';
   out.push(el('h3', { class: 'findings-subhead', text: 'Risk to people (per flight)' }));
   const figures = el('dl', { class: 'figures', data: { finding: 'risk' } });
   const crit = r.total.collectiveCriterion ? `; ${r.total.collectiveCriterion} (${smallRate(st.criteria.collective)}), bound ${r.total.collectiveCriterionUpper95}` : '';
