@@ -36,7 +36,7 @@ export interface RiskSettings {
  * √(A/π) (the same number when the file gives `diameter`). A long body lying across a person's
  * path is wider than that; the file's `risk.objectRadius` overrides it.
  */
-export function riskSettings(scenario: Pick<Scenario, 'vehicle' | 'risk'>): RiskSettings {
+export function riskSettings(scenario: Pick<Scenario, 'vehicle' | 'risk'> & Partial<Pick<Scenario, 'breakup'>>): RiskSettings {
   const r = scenario.risk ?? {};
   const fromArea = Math.sqrt(scenario.vehicle.referenceArea / Math.PI);
   return {
@@ -45,7 +45,10 @@ export function riskSettings(scenario: Pick<Scenario, 'vehicle' | 'risk'>): Risk
     personRadius: r.personRadius ?? DEFAULT_PERSON_RADIUS_M,
     personHeight: r.personHeight ?? DEFAULT_PERSON_HEIGHT_M,
     objectRadius: r.objectRadius ?? fromArea,
-    objectRadiusSource: r.objectRadius !== undefined ? 'risk.objectRadius' : 'half the reference diameter, from the reference area',
+    objectRadiusSource:
+      (r.objectRadius !== undefined ? 'risk.objectRadius' : 'half the reference diameter, from the reference area') +
+      // A breakup's pieces keep their own radius (breakup.fragments[].radius or their size).
+      (scenario.breakup ? '; each fragment its own' : ''),
     levels: [...(r.levels ?? DEFAULT_RISK_LEVELS)].sort((a, b) => b - a),
     criteria: { ...(r.criteria ?? {}) },
   };

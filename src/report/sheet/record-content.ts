@@ -147,6 +147,31 @@ function riskBlocks(risk: RiskSummary, summary: SheetInput['summary'], u: UnitFo
     ]),
   };
   blocks.push(modes);
+  if (risk.parts && summary.parts) {
+    // A breakup: each piece with its own mass (energy) and casualty area, counted per flight.
+    const perPart = new Map(summary.parts.map((p) => [p.name, p]));
+    const per = (x: number | undefined) => (x === undefined ? '-' : x >= 0.01 ? significant(x, 3) : x === 0 ? '0' : x.toExponential(1));
+    blocks.push({
+      kind: 'table',
+      id: 'risk-parts',
+      columns: [
+        { title: 'Impacts by part', weight: 1.7 },
+        { title: 'Landings per flight', weight: 1.1, align: 'right' },
+        { title: 'Expected casualties', weight: 0.8, align: 'right' },
+        { title: 'Speed: median (95 %)', weight: 1.5, align: 'right' },
+        { title: 'Energy: median (95 %)', weight: 1.5, align: 'right' },
+        { title: st.casualtyEnergy_J !== null ? `Share at ${energy(st.casualtyEnergy_J, u)} or more` : 'Casualty chance', weight: 1.4, align: 'right' },
+      ],
+      rows: risk.parts.map((m) => [
+        m.name,
+        per(perPart.get(m.name)?.expectedLandings),
+        smallRate(m.expectedCasualties),
+        Number.isFinite(m.impactSpeed_m_s.p50) ? `${u.speed(m.impactSpeed_m_s.p50)} (${u.speed(m.impactSpeed_m_s.p95)})` : '-',
+        Number.isFinite(m.impactEnergy_J.p50) ? `${energy(m.impactEnergy_J.p50, u)} (${energy(m.impactEnergy_J.p95, u)})` : '-',
+        percent(m.harmfulShare),
+      ]),
+    });
+  }
   const rows: { label: string; value: string }[] = [];
   if (!shown.harm) rows.push({ label: 'Harm model', value: harmText(risk, u) });
   if (!shown.standing) {
