@@ -128,7 +128,7 @@ describe('record page of the club rocket (metric, A4)', () => {
 });
 
 describe('record pages of every demo', () => {
-  for (const demo of ['club-rocket.json', 'display-shell.json', 'drone-power-loss.json', 'drone-route.json']) {
+  for (const demo of ['club-rocket.json', 'display-shell.json', 'display-shell-burst.json', 'drone-power-loss.json', 'drone-route.json']) {
     it(`${demo}: two pages (map and record) on A4 in metric and on Letter in imperial`, () => {
       const out = runDemo(demo, 300);
       const input = readResultsFolder(out);

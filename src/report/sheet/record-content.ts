@@ -416,14 +416,14 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
   const failed = s.failures.length > 0 ? ` (${s.failures.map((f) => `${grouped(f.samples)} ${f.reason}`).join(', ')})` : '';
   const spread5 = (x: { p05: number; p50: number; p95: number; max: number }, f: (v: number) => string) => `5 %: ${f(x.p05)}  \u00b7  median ${f(x.p50)}  \u00b7  95 %: ${f(x.p95)}  \u00b7  highest ${f(x.max)}`;
   const results: { label: string; value: string }[] = [
-    { label: 'Samples', value: `${grouped(s.samples)} flown, ${grouped(landed)} landed, ${grouped(s.failedSamples)} failed${failed}${modes}` },
+    { label: 'Samples', value: `${grouped(s.samples)} flown, ${grouped(landed)} landed, ${grouped(s.failedSamples)} failed${failed}${modes}${s.parts ? `; ${grouped(s.parts.reduce((n, p) => n + p.landings, 0))} landings, pieces counted (regions and zone hold their share of all landings; an area's chance is of any piece)` : ''}` },
     { label: 'Apogee', value: `${spread5(s.apogee_m, (v) => u.length(v))} (above the pad)` },
     { label: 'Flight time', value: spread5(s.flightTime_s, (v) => (Number.isFinite(v) && v !== null ? `${significant(v, 3)} s` : 'n/a')) },
   ];
   const a = s.nominalApogee;
   if (a && !stabilityShown) results.push(nominalApogeeRow(a, u));
-  if (s.parts) {
-    // Per part: each row of landings.csv is a piece (or a whole object) with its flight's weight.
+  if (s.parts && !s.risk?.parts) {
+    // Per part (the risk part's table "Impacts by part" gives the same counts when it is drawn).
     const per = (x: number) => (x >= 0.01 ? significant(x, 3) : x === 0 ? '0' : x.toExponential(1));
     results.push({
       label: 'Parts landing',
