@@ -100,8 +100,9 @@ describe('fragments in air', () => {
       for (let p = 0; p < 4; p++) {
         const k = 4 * i + p;
         expect(b.sample![k]).toBe(i);
-        // Within the integrator's tolerance (the pieces restart the stepper at apogee).
-        expect(Math.hypot(b.east[k] - a.east[i], b.north[k] - a.north[i])).toBeLessThan(0.05);
+        // The object's own flight restarts the stepper at apogee too, so the two agree far inside
+        // the integrator's tolerance (measured: about 1e-11 m); 1 mm leaves room for step changes.
+        expect(Math.hypot(b.east[k] - a.east[i], b.north[k] - a.north[i])).toBeLessThan(1e-3);
       }
     }
   });
