@@ -173,7 +173,7 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
   for (let i = 0; i < n; i++) set.weight[i] /= largest;
   // With parts, a sample's weight counts once for the flight however many rows it has.
   const once = new Uint8Array(n);
-  if (part) {
+  if (part && !(partNames.length === 1 && partNames[0] === 'whole')) {
     const seen = new Set<number>();
     for (let i = 0; i < n; i++) if (!seen.has(set.sample[i])) { seen.add(set.sample[i]); once[i] = 1; }
   } else once.fill(1);
@@ -193,6 +193,7 @@ export function readLandingsCsv(text: string, frame: LocalFrame): LandingSet {
     ...(impactSpeed ? { impactSpeed } : {}),
     ...(impactEnergy ? { impactEnergy } : {}),
     ...(impactAngle ? { impactAngle } : {}),
-    ...(part ? { part, partNames, partRadius: partNames.map(() => NaN) } : {}),
+    // A file whose every row is a whole object (any run without a breakup) reads as before.
+    ...(part && !(partNames.length === 1 && partNames[0] === 'whole') ? { part, partNames, partRadius: partNames.map(() => NaN) } : {}),
   };
 }
