@@ -35,6 +35,17 @@ import { UsageError } from './errors.js';
  * - system errors become one sentence naming the path (exit 2 for a bad path, 1 for a full disk).
  */
 
+/** Longest stretch of writing between two looks at the event loop (a signal waits at most this long). */
+const WRITE_SLICE_MS = 50;
+
+/**
+ * Two turns of the event loop (one is not enough for a signal that arrived during synchronous
+ * work to reach its handler).
+ */
+export async function eventLoopTurns(): Promise<void> {
+  for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
+}
+
 /** Written into every folder Strewn makes; its presence is what lets `--force` replace a folder. */
 export const MARKER_FILE = '.strewn-results';
 const MARKER_TEXT = 'This folder was written by strewn; strewn run/analyze/envelope --force may replace it.\n';
@@ -338,6 +349,42 @@ export class OutputFolder {
         closeSync(fd);
       }
     });
+  }
+
+  /**
+   * Like `write`, but content given in pieces is written in slices of about 50 ms with a turn of
+   * the event loop between them, so Ctrl-C or SIGTERM is answered at once even while a file of
+   * millions of lines is written; stops with the signal's reason when it aborts.
+   */
+  async writeAsync(name: string, content: string | Uint8Array | Iterable<string | Uint8Array>, signal?: AbortSignal): Promise<void> {
+    if (signal) {
+      await eventLoopTurns();
+      signal.throwIfAborted();
+    }
+    if (typeof content === 'string' || content instanceof Uint8Array) {
+      this.write(name, content);
+      return;
+    }
+    const file = join(this.staging, name);
+    if (name.includes('/')) mkdirSync(dirname(file), { recursive: true });
+    const shown = join(this.destination, name);
+    const fd = attempt(shown, 'writing', () => openSync(file, 'w'));
+    try {
+      let slice = performance.now();
+      for (const piece of content) {
+        const bytes = typeof piece === 'string' ? Buffer.from(piece) : piece;
+        attempt(shown, 'writing', () => {
+          for (let at = 0; at < bytes.length; ) at += writeSync(fd, bytes, at, bytes.length - at);
+        });
+        if (performance.now() - slice > WRITE_SLICE_MS) {
+          await eventLoopTurns();
+          signal?.throwIfAborted();
+          slice = performance.now();
+        }
+      }
+    } finally {
+      closeSync(fd);
+    }
   }
 
   /**
