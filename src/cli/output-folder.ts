@@ -1,6 +1,7 @@
 import {
   closeSync,
   existsSync,
+  linkSync,
   lstatSync,
   mkdirSync,
   openSync,
@@ -77,7 +78,7 @@ export function fileSystemError(error: unknown, path: string, doing: string): Er
   switch (code) {
     case 'ENOSPC':
     case 'EDQUOT':
-      return new DiskFullError(`the disk is full while ${doing} '${path}'; free some space (or choose another --out) and run again`);
+      return new DiskFullError(`the disk is full while ${doing} '${path}'; free some space (or write elsewhere) and run again`);
     case 'EACCES':
     case 'EPERM':
       return new UsageError(`no permission for ${doing} '${path}'; choose a folder you may write to with --out`);
@@ -309,16 +310,21 @@ export class OutputFolder {
             `--out: another strewn process${owner === undefined ? '' : ` (${owner})`} is writing '${destination}' right now (lock file ${lock}); wait for it or choose another folder`,
           );
         }
+        // Created but not written (a full disk): it is ours, and goes.
+        rmSync(lock, { force: true });
         throw fileSystemError(error, parent, 'writing into');
       }
-      let staging: string;
+      let staging: string | undefined;
       try {
         staging = attempt(parent, 'writing into', () => freshFolder(parent, `.${basename(dest)}.partial-`));
-        attempt(staging, 'writing into', () => {
-          writeFileSync(join(staging, OWNER_FILE), `${process.pid}\n`);
-          writeFileSync(join(staging, MARKER_FILE), MARKER_TEXT);
+        const made = staging;
+        attempt(made, 'writing into', () => {
+          writeFileSync(join(made, OWNER_FILE), `${process.pid}\n`);
+          writeFileSync(join(made, MARKER_FILE), MARKER_TEXT);
         });
       } catch (error) {
+        // A full disk can refuse the staging folder's first files: the folder goes too.
+        if (staging !== undefined) rmSync(staging, { recursive: true, force: true });
         rmSync(lock, { force: true });
         throw error;
       }
@@ -434,5 +440,50 @@ export class OutputFolder {
     if (this.released) return;
     this.released = true;
     rmSync(this.lock, { force: true });
+  }
+}
+
+/**
+ * Writes one file the user named (not a results folder) without ever leaving it half-written: a
+ * regular file (or none yet) is written beside under a temporary name and renamed over the old
+ * one, so a full disk leaves the old file as it was; a device or pipe (/dev/stdout, /dev/full) is
+ * written directly. A full disk becomes one sentence naming the path (DiskFullError: exit 1);
+ * other system errors are passed on for the command to word (EEXIST, ENOENT, EISDIR…).
+ * `exclusive`: refuse (EEXIST) a file that exists.
+ */
+export function writeSingleFile(path: string, content: string | Uint8Array, exclusive = false): void {
+  let stats: Stats | undefined;
+  try {
+    stats = statSync(path);
+  } catch {
+    stats = undefined;
+  }
+  if (stats && exclusive) throw Object.assign(new Error(`${path} exists`), { code: 'EEXIST' });
+  if (stats && !stats.isFile()) {
+    if (stats.isDirectory()) throw Object.assign(new Error(`${path} is a folder`), { code: 'EISDIR' });
+    diskFull(path, () => writeFileSync(path, content));
+    return;
+  }
+  const temp = join(dirname(path), `.${basename(path)}.partial-${process.pid}-${randomBytes(3).toString('hex')}`);
+  try {
+    diskFull(path, () => writeFileSync(temp, content, { flag: 'wx', mode: stats ? stats.mode & 0o7777 : 0o666 }));
+    diskFull(path, () => {
+      if (exclusive) {
+        // Only the rename decides: linking refuses a name that appeared meanwhile.
+        linkSync(temp, path);
+      } else renameSync(temp, path);
+    });
+  } finally {
+    rmSync(temp, { force: true });
+  }
+}
+
+function diskFull<T>(path: string, work: () => T): T {
+  try {
+    return work();
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException)?.code;
+    if (code === 'ENOSPC' || code === 'EDQUOT') throw fileSystemError(error, path, 'writing');
+    throw error;
   }
 }
