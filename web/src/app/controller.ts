@@ -3,8 +3,9 @@ import { DEMOS } from '../scenario/demos.js';
 import { keepWorkspace } from '../scenario/persist.js';
 import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenario/read-files.js';
 import { validateDocument } from '../scenario/validate.js';
+import { isBinaryFile, readBinaryFiles } from '../scenario/ground-files.js';
 import { composeStudy } from '../study/compose.js';
-import { redrawReviewSheet } from '../study/review-sheet.js';
+import { redrawMapSvg, redrawReviewSheet } from '../study/review-sheet.js';
 import { isCancellation, runEngine } from '../study/engine.js';
 import { download } from '../exports/download.js';
 import type { Background } from '../map/tiles.js';
@@ -45,6 +46,16 @@ export class Controller implements Actions {
     this.applyDraft(withValue(this.store.get().draft, path, value));
   }
 
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void {
+    this.applyDraft(change(this.store.get().draft));
+  }
+
+  /** Forecast and terrain files loaded for the scenario being edited (by name; see ground-files.ts). */
+  async attachFiles(files: readonly File[]): Promise<void> {
+    const binaries = await readBinaryFiles(files, this.store.get().draft.binaries);
+    this.applyDraft({ ...this.store.get().draft, binaries });
+  }
+
   /** A pad dragged on the map; 7 decimals of a degree is about a centimetre. */
   movePad(lon: number, lat: number): void {
     const round = (x: number) => Number(x.toFixed(7));
@@ -58,6 +69,7 @@ export class Controller implements Actions {
       this.running?.abort();
       this.computingEnvelope?.abort();
       const state = this.store.get();
+      const named = outcome.accepted.scenario.run.units;
       this.store.update({
         draft: outcome.accepted.document,
         accepted: outcome.accepted,
@@ -67,7 +79,11 @@ export class Controller implements Actions {
         study: null,
         run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
         envelope: IDLE_ENVELOPE,
+        // A scenario that names its units is shown in them (as `strewn run` prints it without
+        // --units); the switch at the top still changes them afterwards.
+        units: named ?? state.units,
       });
+      if (named !== undefined) keepUnits(named);
       this.keep();
     } else {
       this.store.update({ refused: { fileName: outcome.fileName, issues: outcome.issues } });
@@ -75,6 +91,8 @@ export class Controller implements Actions {
   }
 
   async openFiles(files: readonly File[]): Promise<void> {
+    // Only forecast or terrain files (dropped, say): they belong to the scenario already open.
+    if (files.length > 0 && files.every((f) => isBinaryFile(f.name))) return this.attachFiles(files);
     this.take(await openScenarioFiles(files));
   }
 
@@ -168,6 +186,11 @@ export class Controller implements Actions {
     const outcome = envelope.outcome;
     const record = outcome && outcome.hash === study.accepted.hash ? { envelope: outcome.envelope, scenarioHash: outcome.hash, version: VERSION, computedAt: outcome.computedAt } : undefined;
     download(`sheet-${units}-${paper}.pdf`, await redrawReviewSheet(study, paper, units, record));
+  }
+
+  async exportMapSvg(paper: 'a4' | 'letter'): Promise<void> {
+    const { study, units } = this.store.get();
+    if (study) download(`map-${units}-${paper}.svg`, await redrawMapSvg(study, paper, units));
   }
 
   /** Computes the wind limits of the accepted scenario over `grid`, one grid point after another. */

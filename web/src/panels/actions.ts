@@ -1,4 +1,4 @@
-import type { FieldPath } from '../scenario/document.js';
+import type { FieldPath, ScenarioDocument } from '../scenario/document.js';
 import type { LayerGroup } from '../map/style.js';
 import type { UnitSystem } from '../units/systems.js';
 import type { Background } from '../map/tiles.js';
@@ -8,6 +8,10 @@ import type { EnvelopeFileName } from '../study/envelope-files.js';
 /** What the panels can ask the page to do; app/controller.ts carries these out. */
 export interface Actions {
   editField(path: FieldPath, value: unknown): void;
+  /** A change of the draft's structure (a stage added, a list reordered), validated like a field. */
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void;
+  /** Forecast and terrain files for the scenario being edited (Site tab, or dropped). */
+  attachFiles(files: readonly File[]): Promise<void>;
   openFiles(files: readonly File[]): Promise<void>;
   openDemo(id: string): void;
   dismissRefused(): void;
@@ -18,6 +22,8 @@ export interface Actions {
   setUnits(units: UnitSystem): void;
   exportFile(name: string): void;
   exportReviewSheet(paper: 'a4' | 'letter'): Promise<void>;
+  /** The sheet's map page alone (map.svg), in the page's units on `paper`. */
+  exportMapSvg(paper: 'a4' | 'letter'): Promise<void>;
   setBackground(background: Background): Promise<string>;
   setLayerVisible(group: LayerGroup, visible: boolean): void;
   computeEnvelope(grid: EnvelopeGrid): Promise<void>;

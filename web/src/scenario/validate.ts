@@ -3,7 +3,9 @@ import { ScenarioError } from '../../../src/scenario/errors.js';
 import { hashScenario } from '../../../src/scenario/hash.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
 import { nominalFlight, type NominalFlight } from '../study/nominal.js';
+import { nominalFigures, type NominalFigures } from '../../../src/report/stability.js';
 import { attachedFileReader, type ScenarioDocument } from './document.js';
+import { binaryReader, demsFor } from './ground-files.js';
 
 /**
  * The page's sample cap. The command line allows ten million; in a browser tab the result arrays
@@ -19,6 +21,8 @@ export interface AcceptedScenario {
   warnings: Issue[];
   hash: string;
   nominal: NominalFlight;
+  /** Stability (rockets with a shape) and the apogee point, from that same nominal flight. */
+  figures: NominalFigures;
 }
 
 export type Validation = { ok: true; accepted: AcceptedScenario } | { ok: false; issues: Issue[] };
@@ -28,12 +32,14 @@ export function validateDocument(document: ScenarioDocument): Validation {
   try {
     const { scenario, warnings } = parseScenario(document.json, {
       readText: attachedFileReader(document.files),
+      readBytes: binaryReader(document.binaries),
+      dems: demsFor(document.json, document.binaries),
       maxSamples: PAGE_MAX_SAMPLES,
     });
     const nominal = nominalFlight(scenario);
     return {
       ok: true,
-      accepted: { document, scenario, warnings: [...warnings, ...nominal.warnings], hash: hashScenario(scenario), nominal },
+      accepted: { document, scenario, warnings: [...warnings, ...nominal.warnings], hash: hashScenario(scenario), nominal, figures: nominalFigures(scenario, nominal.result) },
     };
   } catch (error) {
     if (error instanceof ScenarioError) return { ok: false, issues: error.issues };
