@@ -21,6 +21,7 @@ import { tabs } from './panels/tabs.js';
 import { unitSwitch } from './panels/unit-switch.js';
 import { installDropTarget } from './panels/drop-target.js';
 import { installTestHook } from './test-hook.js';
+import { installEventView } from './event/install.js';
 
 /**
  * The map workspace: composes the scenario, the engine (through the worker pool), the analysis
@@ -85,6 +86,8 @@ function boot(): void {
       { id: 'limits', title: 'Wind limits', panel: envelopePanel(store, controller) },
       { id: 'files', title: 'Files', panel: exportPanel(store, controller) },
       { id: 'map', title: 'Map', panel: settingsPanel(controller, mapView !== null, (listener) => mapView && (mapView.onBasemapError = listener)) },
+      // The event view and the saved-run comparison (web/src/event/install.ts).
+      ...installEventView(store, mapView),
     ],
     'Workspace',
   );

@@ -1,0 +1,104 @@
+import type { FeatureCollection } from 'geojson';
+import type { Store } from '../app/store.js';
+import { CompareController } from '../compare/compare-controller.js';
+import { compareCell, type CompareCell } from '../compare/saved-run.js';
+import type { MapView } from '../map/view.js';
+import { MapOverlay, OVERLAY_SOURCES, type OverlaySourceId } from '../map/overlay.js';
+import { compareFeatures, eventAreaLabels, eventPadFeatures, eventResultFeatures, eventSiteFeatures, routeFeatures } from '../map/overlay-features.js';
+import { EMPTY_COLLECTION } from '../map/features.js';
+import { comparePanel } from '../panels/compare-panel.js';
+import { eventPanel } from '../panels/event-panel.js';
+import type { Tab } from '../panels/tabs.js';
+import { EventController } from './event-controller.js';
+import { eventCell, type EventCell } from './event-state.js';
+
+/**
+ * Puts the event view and the saved-run comparison into the page: their tabs, their state, and
+ * what they draw on the map (web/src/map/overlay.ts), plus the release route of the scenario.
+ * main.ts only adds the tabs this returns.
+ */
+export interface EventTestHook {
+  phase(): string;
+  progress(): { done: number; total: number };
+  totals(): unknown;
+  onMap(): boolean;
+  comparison(): unknown;
+  sourceData(id: OverlaySourceId): FeatureCollection;
+  /** Layout visibility of a map layer ('visible' or 'none'). */
+  visibility(layer: string): string;
+}
+
+declare global {
+  interface Window {
+    __strewnEvent?: EventTestHook;
+  }
+}
+
+type Kind = 'path' | 'area';
+const routeKinds = (fc: FeatureCollection): Kind[] => fc.features.map((f) => (f.properties?.kind === 'release-path' ? 'path' : 'area'));
+
+export function installEventView(store: Store, mapView: MapView | null): Tab[] {
+  const event: EventCell = eventCell();
+  const compare: CompareCell = compareCell();
+  const eventActions = new EventController(event);
+  const compareActions = new CompareController(compare, store);
+  const overlay = mapView ? new MapOverlay(mapView.map) : null;
+
+  if (overlay) {
+    const drawRoute = () => {
+      const fc = routeFeatures([{ launch: store.get().accepted.scenario.launch }]);
+      overlay.setData(OVERLAY_SOURCES.route, fc);
+      overlay.setRouteKey(routeKinds(fc));
+    };
+    drawRoute();
+    store.subscribe((s, p) => s.accepted !== p.accepted && drawRoute());
+
+    event.subscribe((s, p) => {
+      if (s.plan !== p.plan) {
+        const routes = s.plan ? routeFeatures(s.plan.items.map((it) => ({ launch: it.scenario.launch, item: it.name }))) : EMPTY_COLLECTION;
+        const site = s.plan ? eventSiteFeatures(s.plan.site) : EMPTY_COLLECTION;
+        overlay.setData(OVERLAY_SOURCES.eventSite, { type: 'FeatureCollection', features: [...site.features, ...routes.features] });
+        overlay.setData(OVERLAY_SOURCES.eventPads, s.plan ? eventPadFeatures(s.plan) : EMPTY_COLLECTION);
+      }
+      if (s.plan !== p.plan || s.run !== p.run) {
+        const results = s.run ? eventResultFeatures(s.run.totals) : null;
+        overlay.setData(OVERLAY_SOURCES.eventZones, results?.zones ?? EMPTY_COLLECTION);
+        overlay.setData(OVERLAY_SOURCES.eventRisk, results?.risk ?? EMPTY_COLLECTION);
+        overlay.setData(OVERLAY_SOURCES.eventZoneLabels, results?.labels ?? EMPTY_COLLECTION);
+        overlay.setData(OVERLAY_SOURCES.eventAreaLabels, s.plan ? eventAreaLabels(s.plan.site, s.run?.totals ?? null) : EMPTY_COLLECTION);
+        const routes = s.plan ? routeKinds(routeFeatures(s.plan.items.map((it) => ({ launch: it.scenario.launch })))) : [];
+        overlay.setEventKey(s.run?.totals.zones.map((z) => z.name) ?? [], s.run?.totals.individualRisk.lines.map((l) => l.level) ?? [], routes);
+      }
+      const show = s.onMap && s.plan !== null;
+      if (show !== overlay.showingEvent || (show && (s.plan !== p.plan || s.run !== p.run))) {
+        void overlay.showEvent(show).then(() => {
+          if (show) overlay.fitTo([OVERLAY_SOURCES.eventSite, OVERLAY_SOURCES.eventZones]);
+        });
+      }
+    });
+
+    compare.subscribe((s) => {
+      const shown = s.onMap && s.comparison !== null;
+      overlay.setData(OVERLAY_SOURCES.compare, shown ? compareFeatures(s.saved, s.current) : EMPTY_COLLECTION);
+    });
+  }
+
+  window.__strewnEvent = {
+    phase: () => event.get().phase,
+    progress: () => ({ done: event.get().done, total: event.get().total }),
+    totals: () => {
+      const t = event.get().run?.totals;
+      // Plain figures only (no grids or geometry) for the tests to compare with `strewn event`.
+      return t ? { flights: t.flights, items: t.items, areas: t.areas, total: t.total, unionArea_m2: t.unionArea_m2, unionReach_m: t.unionReach_m, riskMax: t.individualRisk.max, riskLines: t.individualRisk.lines.map((l) => ({ level: l.level, area_m2: l.area_m2 })) } : null;
+    },
+    onMap: () => overlay?.showingEvent ?? false,
+    comparison: () => compare.get().comparison,
+    sourceData: (id) => overlay?.sourceData(id) ?? EMPTY_COLLECTION,
+    visibility: (layer) => String(mapView?.map.getLayoutProperty(layer, 'visibility') ?? 'visible'),
+  };
+
+  return [
+    { id: 'event', title: 'Event', panel: eventPanel(store, event, eventActions) },
+    { id: 'compare', title: 'Compare', panel: comparePanel(store, compare, compareActions) },
+  ];
+}
