@@ -101,7 +101,7 @@ function mapPage(input: EventSheetInput, paper: Paper, units: UnitSystem, measur
     const [e, n] = frame.toEastNorth(pad.lon, pad.lat);
     pads.set(`${e.toFixed(1)},${n.toFixed(1)}`, view.toPage(e, n));
   }
-  for (const [x, y] of pads.values()) inside.push(...padSymbol(x, y));
+  [...pads.values()].forEach(([x, y], i) => inside.push({ kind: 'group', ...(i === 0 ? { id: 'pad' } : {}), className: 'pad', shapes: padSymbol(x, y) }));
   for (const a of areas) {
     const ring = a.polygons[0]?.[0];
     if (!ring || ring.length === 0) continue;
