@@ -26,6 +26,8 @@ export interface EventTestHook {
   sourceData(id: OverlaySourceId): FeatureCollection;
   /** Layout visibility of a map layer ('visible' or 'none'). */
   visibility(layer: string): string;
+  /** How many features of a layer maplibre drew in view, or under one place (lon, lat). */
+  rendered(layer: string, at?: [number, number]): number;
 }
 
 declare global {
@@ -95,6 +97,14 @@ export function installEventView(store: Store, mapView: MapView | null): Tab[] {
     comparison: () => compare.get().comparison,
     sourceData: (id) => overlay?.sourceData(id) ?? EMPTY_COLLECTION,
     visibility: (layer) => String(mapView?.map.getLayoutProperty(layer, 'visibility') ?? 'visible'),
+    rendered: (layer, at) => {
+      if (!mapView) return 0;
+      const options = { layers: [layer] };
+      if (!at) return mapView.map.queryRenderedFeatures(options).length;
+      const p = mapView.map.project(at);
+      // A few pixels around the place: a line is drawn a few pixels wide.
+      return mapView.map.queryRenderedFeatures([[p.x - 3, p.y - 3], [p.x + 3, p.y + 3]], options).length;
+    },
   };
 
   return [
