@@ -3,7 +3,8 @@ import type { Store } from '../app/store.js';
 import { CompareController } from '../compare/compare-controller.js';
 import { compareCell, type CompareCell } from '../compare/saved-run.js';
 import type { MapView } from '../map/view.js';
-import { MapOverlay, OVERLAY_SOURCES, type OverlaySourceId } from '../map/overlay.js';
+import { keyEntry, MapOverlay, OVERLAY_SOURCES, type OverlaySourceId } from '../map/overlay.js';
+import { SYMBOLS, WORDS } from '../../../src/report/symbols.js';
 import { compareFeatures, eventAreaLabels, eventPadFeatures, eventResultFeatures, eventSiteFeatures, routeFeatures } from '../map/overlay-features.js';
 import { EMPTY_COLLECTION } from '../map/features.js';
 import { comparePanel } from '../panels/compare-panel.js';
@@ -63,7 +64,7 @@ export function installEventView(store: Store, mapView: MapView | null): Tab[] {
         overlay.setData(OVERLAY_SOURCES.eventPads, s.plan ? eventPadFeatures(s.plan) : EMPTY_COLLECTION);
       }
       if (s.plan !== p.plan || s.run !== p.run) {
-        const results = s.run ? eventResultFeatures(s.run.totals) : null;
+        const results = s.run && s.plan ? eventResultFeatures(s.run.totals, s.plan.site) : null;
         overlay.setData(OVERLAY_SOURCES.eventZones, results?.zones ?? EMPTY_COLLECTION);
         overlay.setData(OVERLAY_SOURCES.eventRisk, results?.risk ?? EMPTY_COLLECTION);
         overlay.setData(OVERLAY_SOURCES.eventZoneLabels, results?.labels ?? EMPTY_COLLECTION);
@@ -81,7 +82,13 @@ export function installEventView(store: Store, mapView: MapView | null): Tab[] {
 
     compare.subscribe((s) => {
       const shown = s.onMap && s.comparison !== null;
-      overlay.setData(OVERLAY_SOURCES.compare, shown ? compareFeatures(s.saved, s.current) : EMPTY_COLLECTION);
+      const fc = shown ? compareFeatures(s.saved, s.current) : EMPTY_COLLECTION;
+      overlay.setData(OVERLAY_SOURCES.compare, fc);
+      const sides = new Set(fc.features.map((f) => f.properties?.side));
+      overlay.setCompareKey([
+        ...(sides.has('a') ? [keyEntry(SYMBOLS.compareA, `A, saved run: ${WORDS.keepOut.toLowerCase()}`)] : []),
+        ...(sides.has('b') ? [keyEntry(SYMBOLS.compareB, `B, current run: ${WORDS.keepOut.toLowerCase()}`)] : []),
+      ]);
     });
   }
 

@@ -44,25 +44,37 @@ export function eventAreaLabels(site: Site, totals: EventTotals | null): Feature
   const out: Feature<Point, Props>[] = site.areas.map((a) => {
     const row = totals?.areas.find((r) => r.name === a.name);
     const ring = a.geometry.coordinates[0]!;
-    const figures = row ? `\n${smallRate(row.expectedLandings)} landings expected · any ${percent(row.chanceOfAnyLanding)}${row.expectedCasualties !== undefined ? `\ncasualties ${smallRate(row.expectedCasualties)}` : ''}` : '';
+    // No landing among the samples is said in words: "0 %" would read as "cannot happen".
+    const figures = !row ? '' : row.expectedLandings === 0 ? '\nno landing in the samples' : `\n${smallRate(row.expectedLandings)} landings expected · any ${percent(row.chanceOfAnyLanding)}${row.expectedCasualties !== undefined ? `\ncasualties ${smallRate(row.expectedCasualties)}` : ''}`;
     return { type: 'Feature', geometry: { type: 'Point', coordinates: ringCentre(ring) }, properties: { label: `${a.name}${figures}` } };
   });
   return fc(out);
 }
 
 /** Each item's zone (index for its line style), the union, the risk lines (index, highest first). */
-export function eventResultFeatures(totals: EventTotals): { zones: FeatureCollection; risk: FeatureCollection; labels: FeatureCollection } {
+export function eventResultFeatures(totals: EventTotals, site: Site): { zones: FeatureCollection; risk: FeatureCollection; labels: FeatureCollection } {
   const zones: Feature<Geometry, Props>[] = [];
   if (totals.union) zones.push({ type: 'Feature', geometry: totals.union.geometry, properties: { kind: 'union', label: WORDS.eventUnion } });
   totals.zones.forEach((z, i) => zones.push({ type: 'Feature', geometry: z.zone.geometry, properties: { kind: 'item', index: i, item: z.name } }));
   const risk = totals.individualRisk.lines.map((l, k) => ({ type: 'Feature' as const, geometry: l.geometry as Geometry, properties: { kind: 'event-risk', index: k, level: l.level } as Props }));
   const labels: Feature<Point, Props>[] = [];
   if (totals.union) {
-    // Under the zone's southernmost vertex, as the page labels a scenario's zone.
-    let low: number[] | null = null;
+    // At the zone's northern, southern, eastern or western extreme, whichever lies farthest from
+    // the marked areas, so the zone's name does not hide an area's figures.
     const polys = totals.union.geometry.type === 'Polygon' ? [totals.union.geometry.coordinates] : totals.union.geometry.coordinates;
-    for (const p of polys) for (const v of p[0]!) if (low === null || v[1]! < low[1]!) low = v;
-    if (low) labels.push({ type: 'Feature', geometry: { type: 'Point', coordinates: low }, properties: { label: WORDS.eventUnion } });
+    const outer = polys.flatMap((p) => p[0]!);
+    const pick = (better: (a: number[], b: number[]) => boolean) => outer.reduce((best, v) => (better(v, best) ? v : best), outer[0]!);
+    const extremes: { at: number[]; anchor: string }[] = [
+      { at: pick((a, b) => a[1]! < b[1]!), anchor: 'top' },
+      { at: pick((a, b) => a[1]! > b[1]!), anchor: 'bottom' },
+      { at: pick((a, b) => a[0]! < b[0]!), anchor: 'right' },
+      { at: pick((a, b) => a[0]! > b[0]!), anchor: 'left' },
+    ];
+    const centres = site.areas.map((a) => ringCentre(a.geometry.coordinates[0]!));
+    const cosLat = Math.cos((site.pad.lat * Math.PI) / 180);
+    const clearance = (p: number[]) => Math.min(Infinity, ...centres.map((c) => Math.hypot((c[0]! - p[0]!) * cosLat, c[1]! - p[1]!)));
+    const best = extremes.reduce((b, e) => (clearance(e.at) > clearance(b.at) ? e : b), extremes[0]!);
+    labels.push({ type: 'Feature', geometry: { type: 'Point', coordinates: best.at }, properties: { label: WORDS.eventUnion, anchor: best.anchor } });
   }
   return { zones: fc(zones), risk: fc(risk), labels: fc(labels) };
 }

@@ -41,7 +41,7 @@ function byAreaKind(pick: (kind: string) => string | number): ExpressionSpecific
 }
 
 /** Layers drawn with the event view on the map: the event's own (the scenario's are hidden meanwhile). */
-const EVENT_LAYERS = ['event-area-fill', 'event-area-line', 'event-boundary', 'event-route-area-fill', 'event-route-area-line', 'event-route-path', 'event-union-fill', 'event-union-line', ...Array.from({ length: ITEM_STYLES }, (_, i) => `event-item-zone-${i}`), 'event-risk-0', 'event-risk-1', 'event-risk-2', 'event-pad', 'event-area-label', 'event-zone-label'];
+const EVENT_LAYERS = ['event-area-fill', 'event-area-line', 'event-boundary', 'event-route-area-fill', 'event-route-area-line', 'event-route-path', 'event-union-fill', 'event-union-line', ...Array.from({ length: ITEM_STYLES }, (_, i) => `event-item-zone-${i}`), 'event-risk-0', 'event-risk-1', 'event-risk-2', 'event-pad', 'event-pad-centre', 'event-area-label', 'event-zone-label'];
 const SCENARIO_OVERLAY_LAYERS = ['route-area-fill', 'route-area-line', 'route-path', 'compare-a', 'compare-b'];
 
 function overlayLayers(): LayerSpecification[] {
@@ -78,8 +78,9 @@ function overlayLayers(): LayerSpecification[] {
     })),
     ...[0, 1, 2].map((k) => ({ id: `event-risk-${k}`, type: 'line', source: S.eventRisk, filter: ['==', ['get', 'index'], k], layout: { 'line-join': 'round' }, paint: paint(screenLine(riskLineSymbol(k))) })),
     { id: 'event-pad', type: 'circle', source: S.eventPads, paint: { 'circle-color': '#FFFFFF', 'circle-radius': SYMBOLS.pad.radius * 1.4, 'circle-stroke-color': SYMBOLS.pad.ring, 'circle-stroke-width': SYMBOLS.pad.ringWidth * 1.4 } },
+    { id: 'event-pad-centre', type: 'circle', source: S.eventPads, paint: { 'circle-color': SYMBOLS.pad.ring, 'circle-radius': SYMBOLS.pad.centre * 1.4 } },
     { id: 'event-area-label', type: 'symbol', source: S.eventAreaLabels, layout: { ...label, 'text-size': 12 }, paint: { 'text-color': '#1A1A1A', 'text-halo-color': '#FFFFFF', 'text-halo-width': 1.6 } },
-    { id: 'event-zone-label', type: 'symbol', source: S.eventZoneLabels, layout: { ...label, 'text-size': 13, 'text-anchor': 'top', 'text-allow-overlap': true }, paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
+    { id: 'event-zone-label', type: 'symbol', source: S.eventZoneLabels, layout: { ...label, 'text-size': 13, 'text-anchor': ['get', 'anchor'], 'text-radial-offset': 0.5, 'text-allow-overlap': true }, paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ] as LayerSpecification[];
 }
 
@@ -112,7 +113,9 @@ export class MapOverlay {
   /** The scenario layers' visibility before the event hid them, restored after. */
   private hidden: { id: string; visibility: unknown }[] = [];
   /** The key of what the overlay draws (a small box on the map, top left). */
-  readonly key = el('div', { class: 'maplibregl-ctrl overlay-key', data: { test: 'overlay-key' } });
+  readonly key = el('details', { class: 'maplibregl-ctrl overlay-key', data: { test: 'overlay-key' } });
+  /** Whether the reader opened or folded the key (from then on the page leaves it). */
+  private keyFoldDecided = false;
   private keys = { route: [] as HTMLElement[], event: [] as HTMLElement[], compare: [] as HTMLElement[] };
 
   constructor(readonly map: MapLibreMap) {
@@ -122,8 +125,9 @@ export class MapOverlay {
     }).then(() => {
       for (const id of Object.values(OVERLAY_SOURCES)) map.addSource(id, { type: 'geojson', data: this.given.get(id) ?? EMPTY_COLLECTION });
       // Over the scenario's results, under its labels.
+      // Labels go on top of every other label: the event's figures are placed first.
       const before = map.getLayer('basemap-label') ? 'basemap-label' : undefined;
-      for (const layer of overlayLayers()) map.addLayer(layer, before);
+      for (const layer of overlayLayers()) map.addLayer(layer, layer.type === 'symbol' ? undefined : before);
       for (const id of EVENT_LAYERS) map.setLayoutProperty(id, 'visibility', this.eventShown ? 'visible' : 'none');
     });
     this.key.hidden = true;
@@ -166,7 +170,11 @@ export class MapOverlay {
   private drawKey(): void {
     const entries = this.eventShown ? this.keys.event : [...this.keys.route, ...this.keys.compare];
     this.key.hidden = entries.length === 0;
-    replaceChildren(this.key, el('ul', {}, ...entries));
+    const summary = el('summary', { text: this.eventShown ? 'Key: the event' : 'Key' });
+    summary.addEventListener('click', () => (this.keyFoldDecided = true));
+    replaceChildren(this.key, summary, el('ul', {}, ...entries));
+    // Folded on a narrow map, where it would cover most of it, until the reader decides.
+    if (!this.keyFoldDecided) this.key.open = this.map.getContainer().clientWidth >= 640;
   }
 
   /**

@@ -79,7 +79,7 @@ export function comparePanel(store: Store, cell: CompareCell, actions: CompareCo
 function notes(c: Comparison): HTMLElement[] {
   const out: HTMLElement[] = [];
   if (c.a.scenarioHash === c.b.scenarioHash && c.a.seed === c.b.seed && c.a.samples === c.b.samples) out.push(el('p', { class: 'note', text: 'The same scenario, seed and sample count: the two runs should agree exactly.' }));
-  else if (c.a.scenarioHash !== c.b.scenarioHash) out.push(el('p', { class: 'note', text: 'The saved run is of a different scenario (or of this one before a change).' }));
+  else if (c.a.scenarioHash !== c.b.scenarioHash) out.push(el('p', { class: 'note', text: `The two runs differ in their inputs: another scenario, an edit, or another seed or sample count (seed ${c.a.seed} with ${c.a.samples.toLocaleString('en')} samples, and seed ${c.b.seed} with ${c.b.samples.toLocaleString('en')}).` }));
   if (c.samePad === false) out.push(el('p', { class: 'note', data: { test: 'compare-pads' }, text: 'The two runs fly from different pads.' }));
   return out;
 }
