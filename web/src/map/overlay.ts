@@ -131,6 +131,9 @@ export class MapOverlay {
       for (const id of EVENT_LAYERS) map.setLayoutProperty(id, 'visibility', this.eventShown ? 'visible' : 'none');
     });
     this.key.hidden = true;
+    map.on('resize', () => {
+      if (!this.keyFoldDecided) this.key.open = map.getContainer().clientWidth >= 640;
+    });
     map.addControl({ onAdd: () => this.key, onRemove: () => this.key.remove() }, 'top-left');
   }
 
