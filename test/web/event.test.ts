@@ -229,6 +229,11 @@ describe('workspace: a saved run beside the current one', () => {
 describe('workspace: a drone operation on the map', () => {
   it('draws the route flown and an area flown over where their coordinates lie, with their key', async () => {
     const page = await session.open();
+    // Event plans in scenarios/ are offered on the Event tab, not as scenario demos.
+    const demos = await page.locator('#demo-select option').evaluateAll((options) => options.map((o) => (o as HTMLOptionElement).value));
+    expect(demos.length).toBeGreaterThan(0);
+    expect(demos.filter((id) => id.includes('event'))).toEqual([]);
+    expect(await page.locator('[data-test="event-demo"] option').count()).toBe(2);
     const scenario = JSON.parse(readFileSync(join(SCEN, 'drone-route.json'), 'utf8'));
     await page.locator('#scenario-file-input').setInputFiles({ name: 'drone-route.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(scenario)) });
     await expect.poll(() => page.evaluate(() => window.__strewn!.scenario().name)).toBe(scenario.name);
