@@ -3,6 +3,7 @@ import { flyNominal } from '../../../src/dispersion/runner.js';
 import { machWarnings, railExitSpeedWarnings } from '../../../src/scenario/warnings.js';
 import { apogeeWarnings } from '../../../src/scenario/plausibility.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
+import type { FlightResult } from '../../../src/flight/flight.js';
 
 /** The nominal flight, flown by the engine, as the map draws it. */
 export interface NominalFlight {
@@ -13,6 +14,8 @@ export interface NominalFlight {
   landed: boolean;
   /** Warnings that only a flight can give (rail-exit speed), as the command line adds them. */
   warnings: Issue[];
+  /** The engine's result of that flight (stability figures and the apogee point read it). */
+  result: FlightResult;
 }
 
 /**
@@ -30,6 +33,7 @@ export function nominalFlight(scenario: Scenario): NominalFlight {
     if (apogee === null || y[2]! > apogee.height) apogee = { lonLat: point, height: y[2]! };
   });
   return {
+    result,
     track,
     apogee,
     landed: result.status === 0,
