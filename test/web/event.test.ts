@@ -153,10 +153,26 @@ describe('workspace: the whole event', () => {
     const page = await session.open();
     await page.locator('[data-tab="event"]').click();
     await page.locator('[data-test="event-file"]').setInputFiles([plan.file, join(plan.dir, 'club-rocket.json')]);
+    await expect.poll(() => page.locator('[data-test="event-refused"]').innerText()).toContain('small.event.json was not opened');
     const alert = await page.locator('[data-test="event-refused"]').innerText();
-    expect(alert).toContain('small.event.json was not opened');
     expect(alert).toContain('items[2].scenario');
     expect(alert).toContain('drone-route.json');
+
+    // Dropped on the page with all its files, the plan opens in the Event tab (not as a scenario).
+    const scenarioBefore = await page.evaluate(() => window.__strewn!.scenario().hash);
+    await page.locator('[data-tab="setup"]').click();
+    const files = plan.files.map((f) => ({ name: f.split('/').pop()!, text: readFileSync(f, 'utf8') }));
+    const dropped = await page.evaluateHandle((list) => {
+      const d = new DataTransfer();
+      for (const f of list) d.items.add(new File([f.text], f.name, { type: f.name.endsWith('.csv') ? 'text/csv' : 'application/json' }));
+      return d;
+    }, files);
+    await page.dispatchEvent('body', 'dragenter', { dataTransfer: dropped });
+    await page.dispatchEvent('body', 'drop', { dataTransfer: dropped });
+    await expect.poll(() => page.locator('[data-test="event-name"]').innerText()).toBe('Harrowmere club launch day (invented)');
+    expect(await page.locator('[data-tab="event"]').getAttribute('aria-selected')).toBe('true');
+    expect(await page.locator('[data-test="event-refused"]').isHidden()).toBe(true);
+    expect(await page.evaluate(() => window.__strewn!.scenario().hash)).toBe(scenarioBefore);
   }, 120_000);
 });
 

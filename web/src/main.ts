@@ -79,6 +79,7 @@ function boot(): void {
   controller.mapView = mapView;
 
   const side = byId('side');
+  const eventView = installEventView(store, mapView);
   const workspaceTabs = tabs(
     [
       { id: 'setup', title: 'Setup', panel: scenarioPanel(store, controller) },
@@ -87,7 +88,7 @@ function boot(): void {
       { id: 'files', title: 'Files', panel: exportPanel(store, controller) },
       { id: 'map', title: 'Map', panel: settingsPanel(controller, mapView !== null, (listener) => mapView && (mapView.onBasemapError = listener)) },
       // The event view and the saved-run comparison (web/src/event/install.ts).
-      ...installEventView(store, mapView),
+      ...eventView.tabs,
     ],
     'Workspace',
   );
@@ -98,7 +99,11 @@ function boot(): void {
     if (state.study !== previous.study && state.study !== null) workspaceTabs.select('findings');
   });
 
-  installDropTarget(document.body, (files) => controller.openFiles(files));
+  installDropTarget(document.body, (files) => {
+    if (!eventView.opens(files)) return controller.openFiles(files);
+    workspaceTabs.select('event');
+    return eventView.openFiles(files);
+  });
 
   if (mapView) {
     const view = mapView;

@@ -40,7 +40,14 @@ declare global {
 type Kind = 'path' | 'area';
 const routeKinds = (fc: FeatureCollection): Kind[] => fc.features.map((f) => (f.properties?.kind === 'release-path' ? 'path' : 'area'));
 
-export function installEventView(store: Store, mapView: MapView | null): Tab[] {
+export interface EventView {
+  tabs: Tab[];
+  /** Files dropped on the page that hold an event plan (*.event.json) open here, not as a scenario. */
+  opens(files: readonly File[]): boolean;
+  openFiles(files: readonly File[]): Promise<void>;
+}
+
+export function installEventView(store: Store, mapView: MapView | null): EventView {
   const event: EventCell = eventCell();
   const compare: CompareCell = compareCell();
   const eventActions = new EventController(event);
@@ -114,8 +121,12 @@ export function installEventView(store: Store, mapView: MapView | null): Tab[] {
     },
   };
 
-  return [
-    { id: 'event', title: 'Event', panel: eventPanel(store, event, eventActions) },
-    { id: 'compare', title: 'Compare', panel: comparePanel(store, compare, compareActions) },
-  ];
+  return {
+    tabs: [
+      { id: 'event', title: 'Event', panel: eventPanel(store, event, eventActions) },
+      { id: 'compare', title: 'Compare', panel: comparePanel(store, compare, compareActions) },
+    ],
+    opens: (files) => files.some((f) => /\.event\.json$/i.test(f.name)),
+    openFiles: (files) => eventActions.openFiles(files),
+  };
 }
