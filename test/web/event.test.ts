@@ -59,9 +59,10 @@ async function panelFits(page: Page): Promise<void> {
   expect(widths.body, 'page width').toBeLessThanOrEqual(widths.view + 1);
 }
 
-async function shotsAtWidths(page: Page, name: string): Promise<void> {
+async function shotsAtWidths(page: Page, name: string, refit?: () => Promise<void>): Promise<void> {
   for (const width of [360, 800, 1440]) {
     await page.setViewportSize({ width, height: 900 });
+    await refit?.();
     await mapIdle(page);
     await panelFits(page);
     await page.screenshot({ path: join(session.shots, `${name}-${width}.png`), fullPage: width === 360 });
@@ -122,14 +123,23 @@ describe('workspace: the whole event', () => {
     expect(zones.filter((k) => k === 'item')).toHaveLength(3);
     expect(await page.evaluate(() => window.__strewnEvent!.sourceData('event-risk').features.length)).toBe(t.riskLines.length);
     expect(await page.evaluate(() => window.__strewnEvent!.visibility('landings'))).toBe('none');
+    // The plan's own basemap replaces the scenario's (a plan may be for another place).
+    const planJson = JSON.parse(readFileSync(plan.file, 'utf8'));
+    expect(await page.evaluate(() => window.__strewnEvent!.sourceData('event-basemap').features.length)).toBe(planJson.site.basemap.features.length);
+    expect(await page.evaluate(() => window.__strewnEvent!.visibility('basemap-field'))).toBe('none');
     await mapIdle(page);
+    expect(await page.evaluate(() => window.__strewnEvent!.rendered('event-basemap-field'))).toBeGreaterThan(0);
     expect(await page.evaluate(() => window.__strewnEvent!.rendered('event-union-line'))).toBeGreaterThan(0);
     expect(await page.evaluate(() => window.__strewnEvent!.rendered('event-route-path'))).toBeGreaterThan(0);
     expect(await page.locator('[data-test="overlay-key"]').innerText()).toContain('Event keep-out zone (all items)');
     expect(await page.locator('[data-test="pad-marker"]').isVisible()).toBe(false);
     const labels = await page.evaluate(() => window.__strewnEvent!.sourceData('event-area-labels').features.map((f) => f.properties!.label as string));
     expect(labels.find((l) => l.startsWith('Duck pond'))).toMatch(/landings expected · any \d/);
-    await shotsAtWidths(page, 'event');
+    // Framed again at each width, as opening the plan at that width would frame it.
+    await shotsAtWidths(page, 'event', async () => {
+      await page.locator('[data-test="event-on-map"]').uncheck();
+      await page.locator('[data-test="event-on-map"]').check();
+    });
 
     // The event sheet: two pages, the plan's name and the sign-off.
     const pdf = await download(page, '[data-test="event-sheet"]', 'page-event-sheet.pdf');
@@ -144,6 +154,7 @@ describe('workspace: the whole event', () => {
     // Back to the scenario: its layers return as they were.
     await page.locator('[data-test="event-on-map"]').uncheck();
     await expect.poll(() => page.evaluate(() => window.__strewnEvent!.visibility('landings'))).toBe('visible');
+    expect(await page.evaluate(() => window.__strewnEvent!.visibility('basemap-field'))).toBe('visible');
     expect(await page.evaluate(() => window.__strewnEvent!.visibility('event-union-line'))).toBe('none');
     expect(await page.locator('[data-test="pad-marker"]').isVisible()).toBe(true);
   }, 300_000);

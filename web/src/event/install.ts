@@ -6,7 +6,7 @@ import type { MapView } from '../map/view.js';
 import { keyEntry, MapOverlay, OVERLAY_SOURCES, type OverlaySourceId } from '../map/overlay.js';
 import { SYMBOLS, WORDS } from '../../../src/report/symbols.js';
 import { compareFeatures, eventAreaLabels, eventPadFeatures, eventResultFeatures, eventSiteFeatures, routeFeatures } from '../map/overlay-features.js';
-import { EMPTY_COLLECTION } from '../map/features.js';
+import { EMPTY_COLLECTION, basemapFeatures } from '../map/features.js';
 import { comparePanel } from '../panels/compare-panel.js';
 import { eventPanel } from '../panels/event-panel.js';
 import type { Tab } from '../panels/tabs.js';
@@ -69,6 +69,9 @@ export function installEventView(store: Store, mapView: MapView | null): EventVi
         const site = s.plan ? eventSiteFeatures(s.plan.site) : EMPTY_COLLECTION;
         overlay.setData(OVERLAY_SOURCES.eventSite, { type: 'FeatureCollection', features: [...site.features, ...routes.features] });
         overlay.setData(OVERLAY_SOURCES.eventPads, s.plan ? eventPadFeatures(s.plan) : EMPTY_COLLECTION);
+        const basemap = s.plan ? basemapFeatures(s.plan.site) : null;
+        overlay.setData(OVERLAY_SOURCES.eventBasemap, basemap?.shapes ?? EMPTY_COLLECTION);
+        overlay.setData(OVERLAY_SOURCES.eventBasemapLabels, basemap?.labels ?? EMPTY_COLLECTION);
       }
       if (s.plan !== p.plan || s.run !== p.run) {
         const results = s.run && s.plan ? eventResultFeatures(s.run.totals, s.plan.site) : null;

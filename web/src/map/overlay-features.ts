@@ -59,16 +59,15 @@ export function eventResultFeatures(totals: EventTotals, site: Site): { zones: F
   const risk = totals.individualRisk.lines.map((l, k) => ({ type: 'Feature' as const, geometry: l.geometry as Geometry, properties: { kind: 'event-risk', index: k, level: l.level } as Props }));
   const labels: Feature<Point, Props>[] = [];
   if (totals.union) {
-    // At the zone's northern, southern, eastern or western extreme, whichever lies farthest from
-    // the marked areas, so the zone's name does not hide an area's figures.
+    // Under the zone's southern or over its northern extreme, whichever lies farther from the
+    // marked areas, so the zone's name does not hide an area's figures (centred on the point, it
+    // is not cut off at the map's side as a label beside an east or west extreme can be).
     const polys = totals.union.geometry.type === 'Polygon' ? [totals.union.geometry.coordinates] : totals.union.geometry.coordinates;
     const outer = polys.flatMap((p) => p[0]!);
     const pick = (better: (a: number[], b: number[]) => boolean) => outer.reduce((best, v) => (better(v, best) ? v : best), outer[0]!);
     const extremes: { at: number[]; anchor: string }[] = [
       { at: pick((a, b) => a[1]! < b[1]!), anchor: 'top' },
       { at: pick((a, b) => a[1]! > b[1]!), anchor: 'bottom' },
-      { at: pick((a, b) => a[0]! < b[0]!), anchor: 'right' },
-      { at: pick((a, b) => a[0]! > b[0]!), anchor: 'left' },
     ];
     const centres = site.areas.map((a) => ringCentre(a.geometry.coordinates[0]!));
     const cosLat = Math.cos((site.pad.lat * Math.PI) / 180);

@@ -5,7 +5,7 @@ import { smallRate } from '../../../src/report/sheet/units.js';
 import { el, replaceChildren } from '../panels/dom.js';
 import { EMPTY_COLLECTION, boundsOf } from './features.js';
 import { AREA_KINDS, BOUNDARY, KEEP_OUT, KEEP_OUT_FILL, areaStyle, screenLine, type LineStyle } from './palette.js';
-import { FONT, LAYER_GROUPS, layersOf, type LayerGroup } from './style.js';
+import { FONT, LAYER_GROUPS, SOURCES, layersOf, offlineStyle, type LayerGroup } from './style.js';
 
 /**
  * What the page draws over the scenario's map, in layers of its own (so the scenario's layers and
@@ -17,6 +17,8 @@ import { FONT, LAYER_GROUPS, layersOf, type LayerGroup } from './style.js';
 
 export const OVERLAY_SOURCES = {
   route: 'release-route',
+  eventBasemap: 'event-basemap',
+  eventBasemapLabels: 'event-basemap-labels',
   eventSite: 'event-site',
   eventAreaLabels: 'event-area-labels',
   eventZones: 'event-zones',
@@ -40,8 +42,21 @@ function byAreaKind(pick: (kind: string) => string | number): ExpressionSpecific
   return ['match', ['get', 'areaKind'], ...cases, pick('other')] as unknown as ExpressionSpecification;
 }
 
+/**
+ * The event site's own basemap, drawn exactly as the scenario's (the same layer definitions from
+ * style.ts, on sources of the event's), since the plan may be for another place than the scenario.
+ */
+function basemapLayers(): { scenario: string[]; event: LayerSpecification[] } {
+  const base = offlineStyle().layers.filter((l) => 'source' in l && (l.source === SOURCES.basemap || l.source === SOURCES.basemapLabels));
+  return {
+    scenario: base.map((l) => l.id),
+    event: base.map((l) => ({ ...l, id: `event-${l.id}`, source: (l as { source: string }).source === SOURCES.basemap ? OVERLAY_SOURCES.eventBasemap : OVERLAY_SOURCES.eventBasemapLabels }) as LayerSpecification),
+  };
+}
+const BASEMAP_LAYERS = basemapLayers();
+
 /** Layers drawn with the event view on the map: the event's own (the scenario's are hidden meanwhile). */
-const EVENT_LAYERS = ['event-area-fill', 'event-area-line', 'event-boundary', 'event-route-area-fill', 'event-route-area-line', 'event-route-path', 'event-union-fill', 'event-union-line', ...Array.from({ length: ITEM_STYLES }, (_, i) => `event-item-zone-${i}`), 'event-risk-0', 'event-risk-1', 'event-risk-2', 'event-pad', 'event-pad-centre', 'event-area-label', 'event-zone-label'];
+const EVENT_LAYERS = [...BASEMAP_LAYERS.event.map((l) => l.id), 'event-area-fill', 'event-area-line', 'event-boundary', 'event-route-area-fill', 'event-route-area-line', 'event-route-path', 'event-union-fill', 'event-union-line', ...Array.from({ length: ITEM_STYLES }, (_, i) => `event-item-zone-${i}`), 'event-risk-0', 'event-risk-1', 'event-risk-2', 'event-pad', 'event-pad-centre', 'event-area-label', 'event-zone-label'];
 const SCENARIO_OVERLAY_LAYERS = ['route-area-fill', 'route-area-line', 'route-path', 'compare-a', 'compare-b'];
 
 function overlayLayers(): LayerSpecification[] {
@@ -127,6 +142,9 @@ export class MapOverlay {
       // Over the scenario's results, under its labels.
       // Labels go on top of every other label: the event's figures are placed first.
       const before = map.getLayer('basemap-label') ? 'basemap-label' : undefined;
+      // The event's basemap goes where the scenario's lies, at the bottom of the results.
+      const bottom = map.getLayer('boundary-line') ? 'boundary-line' : before;
+      for (const layer of BASEMAP_LAYERS.event) map.addLayer(layer, layer.type === 'symbol' ? before : bottom);
       for (const layer of overlayLayers()) map.addLayer(layer, layer.type === 'symbol' ? undefined : before);
       for (const id of EVENT_LAYERS) map.setLayoutProperty(id, 'visibility', this.eventShown ? 'visible' : 'none');
     });
@@ -191,7 +209,7 @@ export class MapOverlay {
     const container = this.map.getContainer();
     container.classList.toggle('event-on-map', on);
     if (on) {
-      const ids = [...(Object.keys(LAYER_GROUPS) as LayerGroup[]).flatMap((g) => layersOf(g)), 'boundary-line', ...SCENARIO_OVERLAY_LAYERS].filter((id) => this.map.getLayer(id));
+      const ids = [...(Object.keys(LAYER_GROUPS) as LayerGroup[]).flatMap((g) => layersOf(g)), 'boundary-line', ...BASEMAP_LAYERS.scenario, ...SCENARIO_OVERLAY_LAYERS].filter((id) => this.map.getLayer(id));
       this.hidden = ids.map((id) => ({ id, visibility: this.map.getLayoutProperty(id, 'visibility') }));
       for (const { id } of this.hidden) this.map.setLayoutProperty(id, 'visibility', 'none');
       for (const id of EVENT_LAYERS) this.map.setLayoutProperty(id, 'visibility', 'visible');
