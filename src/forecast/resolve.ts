@@ -33,7 +33,20 @@ export interface ResolvedForecast {
   spread?: { speedSd: number; fromSd: number; layerTop: number };
 }
 
+/**
+ * The last answer, by the very bytes and request: the page validates the scenario on every edit,
+ * and decoding a forecast's grids takes a few hundred milliseconds. A copy is handed out, so a
+ * caller that changes its rows changes nothing here.
+ */
+let last: { bytes: Uint8Array; key: string; result: ResolvedForecast } | null = null;
+
 export function resolveForecast(bytes: Uint8Array, request: ForecastRequest, pad: Pad): ResolvedForecast {
+  const key = JSON.stringify([request.time, request.window ?? null, pad.lat, pad.lon, pad.elevation]);
+  if (last === null || last.bytes !== bytes || last.key !== key) last = { bytes, key, result: resolveUncached(bytes, request, pad) };
+  return structuredClone(last.result);
+}
+
+function resolveUncached(bytes: Uint8Array, request: ForecastRequest, pad: Pad): ResolvedForecast {
   const fields = readGrib2(bytes);
   const profile = forecastProfile(fields, pad, request.time);
   const pool: PadProfile[] = profile.perMember.length >= 2 ? [...profile.perMember] : [profile.nominal];

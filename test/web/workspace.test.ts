@@ -362,7 +362,7 @@ describe('map workspace', () => {
     expect(reached).toContain('tab');
     await page.locator('[data-tab="setup"]').focus();
     await page.keyboard.press('ArrowRight');
-    expect(await page.evaluate(() => (document.activeElement as HTMLElement).dataset.tab)).toBe('findings');
+    expect(await page.evaluate(() => (document.activeElement as HTMLElement).dataset.tab)).toBe('site');
   }, TEST_TIMEOUT);
 
   it.skipIf(process.env.STREWN_SKIP_WEB_TIMING === '1')('times 20,000 samples in the page against the command line', async () => {

@@ -22,6 +22,11 @@ import { unitSwitch } from './panels/unit-switch.js';
 import { installDropTarget } from './panels/drop-target.js';
 import { installTestHook } from './test-hook.js';
 import { installEventView } from './event/install.js';
+import { SiteSession } from './map/site-session.js';
+import { SiteEditor } from './map/site-editor.js';
+import { TerrainLayer } from './map/terrain-layer.js';
+import { installSiteTestHook } from './map/site-test-hook.js';
+import { sitePanel } from './panels/site-panel.js';
 
 /**
  * The map workspace: composes the scenario, the engine (through the worker pool), the analysis
@@ -40,7 +45,7 @@ function boot(): void {
   const initial = initialWorkspace();
   const store = new Store({
     ...initial,
-    refused: null,
+    refused: initial.refused ?? null,
     documentVersion: 0,
     units: recallUnits(),
     run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
@@ -77,12 +82,17 @@ function boot(): void {
     mapContainer.appendChild(el('div', { class: 'map-missing', attrs: { role: 'alert' } }, el('strong', { text: 'The map cannot be shown: ' }), mapProblem, '. Everything else works: run the scenario and read the Findings and Files tabs.'));
   }
   controller.mapView = mapView;
+  // The site drawn on the map and the terrain's contours (Site tab).
+  const siteSession = new SiteSession();
+  const siteEditor = mapView ? new SiteEditor(mapView.map, siteSession, store, controller, mapView.ready()) : null;
+  const terrainLayer = mapView ? new TerrainLayer(mapView.map, mapView.ready()) : null;
 
   const side = byId('side');
   const eventView = installEventView(store, mapView);
   const workspaceTabs = tabs(
     [
       { id: 'setup', title: 'Setup', panel: scenarioPanel(store, controller) },
+      { id: 'site', title: 'Site', panel: sitePanel(store, controller, { session: siteSession, editor: siteEditor, terrain: terrainLayer }) },
       { id: 'findings', title: 'Findings', panel: findingsPanel(store) },
       { id: 'limits', title: 'Wind limits', panel: envelopePanel(store, controller) },
       { id: 'files', title: 'Files', panel: exportPanel(store, controller) },
@@ -122,6 +132,7 @@ function boot(): void {
   store.subscribe(showStale);
 
   installTestHook(store, mapView);
+  installSiteTestHook(store, siteSession, mapView?.map ?? null, siteEditor, terrainLayer);
 }
 
 boot();

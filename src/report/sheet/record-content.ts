@@ -24,6 +24,9 @@ import type { SheetInput } from './sheet-input.js';
 import type { RiskSummary } from '../../risk/index.js';
 import { grouped, levelText, percent, significant, smallRate, type UnitFormatter } from '../format-number.js';
 import { unprintableCount } from './winansi.js';
+import { sideView } from './side-view.js';
+import { WORDS } from '../symbols.js';
+import type { UnitSystem } from '../format-number.js';
 
 export interface Column {
   title: string;
@@ -41,6 +44,8 @@ export type Block =
   | { kind: 'bullets'; items: string[] }
   /** A drawing laid at (x, y) across `width` in type of `size`; it reports the height it took. */
   | { kind: 'figure'; draw: (x: number, y: number, width: number, size: number, measure: TextMeasure) => { shapes: Shape[]; height: number } }
+  /** Blocks set side by side, each column across its share (`weight`) of the width. */
+  | { kind: 'columns'; columns: { weight: number; blocks: Block[] }[] }
   | { kind: 'signoff' };
 
 export interface RecordLimits {
@@ -52,39 +57,156 @@ export interface RecordLimits {
   sensitivityInputs: number;
 }
 
-/** The risk-to-people part of the record: settings, lines, standing distances, totals against criteria. */
-function riskBlocks(risk: RiskSummary, u: UnitFormatter): Block[] {
-  const blocks: Block[] = [];
-  const st = risk.settings;
-  blocks.push({ kind: 'heading', text: 'Risk to people (per flight)' });
-  const harm = st.casualtyEnergy_J !== null
-    ? `a casualty when the impact energy reaches ${significant(st.casualtyEnergy_J, 3)} J`
-    : `casualty chance by impact energy from the scenario's table (${st.casualtyProbability?.energy_J.length ?? 0} rows)`;
-  blocks.push({
-    kind: 'rows',
-    rows: [
-      { label: 'Harm model', value: `${harm}; person ${u.shortLength(st.personRadius_m)} radius, ${u.shortLength(st.personHeight_m)} tall; object radius ${u.shortLength(st.objectRadius_m)} (${st.objectRadiusFrom})` },
-      { label: 'Casualties, all areas', value: `${smallRate(risk.total.expectedCasualties)} (95 % bound ${smallRate(risk.total.upper95)})${risk.total.collectiveCriterion ? `: ${risk.total.collectiveCriterion} of ${smallRate(st.criteria.collective)} (bound ${risk.total.collectiveCriterionUpper95})` : ''}` },
-    ],
-  });
-  blocks.push({
+const OCTANTS = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
+
+/** A judgement against the user's criterion in two words for a table cell ('under', 'over'). */
+function judged(j: string | null | undefined): string {
+  return j ? (j.startsWith('under') ? ' (under)' : ' (over)') : '';
+}
+
+/** The standing-distance row of the octant table: where individual risk stays under the level. */
+function standingRow(risk: RiskSummary, u: UnitFormatter): string[] {
+  return [
+    `risk under ${smallRate(risk.standingLevel)} beyond${risk.standingResolved ? '' : ' (not resolved)'}`,
+    ...OCTANTS.map((o) => u.length(risk.standingDistance_m[o])),
+  ];
+}
+
+/**
+ * The risk-to-people part of the record: the individual-risk lines and each mode's impacts side by
+ * side, then the harm model, the standing distances (when the keep-out octant table does not carry
+ * them), the total and the criteria. Wording as `strewn run` prints it (src/report/risk-text.ts).
+ */
+function riskLinesTable(risk: RiskSummary, u: UnitFormatter): Block {
+  return {
     kind: 'table',
     id: 'risk-lines',
     columns: [
-      { title: 'Individual-risk line', weight: 1.6 },
-      { title: 'Area inside', weight: 1.2, align: 'right' },
-      { title: 'Farthest reach', weight: 1.2, align: 'right' },
-      { title: 'Known from the samples?', weight: 2.4, align: 'right' },
+      { title: 'Risk line', weight: 1.2 },
+      { title: 'Area inside', weight: 1.05, align: 'right' },
+      { title: 'Reaches', weight: 0.9, align: 'right' },
+      { title: 'Resolved by samples?', weight: 2, align: 'right' },
     ],
     rows: risk.lines.map((l) => [
       smallRate(l.level),
       u.area(l.area_m2),
       u.length(l.maxDistance_m),
-      l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`,
+      l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} needed`,
     ]),
-  });
+  };
+}
+
+/** The harm model in words: what makes an impact a casualty, and over what area. */
+function harmText(risk: RiskSummary, u: UnitFormatter): string {
+  const st = risk.settings;
+  const harm = st.casualtyEnergy_J !== null
+    ? `a casualty within the casualty area (by impact angle) at ${energy(st.casualtyEnergy_J, u)} or more`
+    : `casualty chance within the casualty area (by impact angle) by impact energy, from the scenario's table (${st.casualtyProbability?.energy_J.length ?? 0} rows)`;
+  return `${harm}; person ${u.shortLength(st.personRadius_m)} radius, ${u.shortLength(st.personHeight_m)} tall; object radius ${u.diameter(st.objectRadius_m)} (${st.objectRadiusFrom})`;
+}
+
+/** The total against the user's collective criterion, or that none was given. */
+function criteriaText(risk: RiskSummary): string {
+  const t = risk.total;
+  const c = risk.settings.criteria;
+  const out: string[] = [];
+  if (c.collective !== undefined) out.push(`collective criterion ${smallRate(c.collective)}: total ${t.collectiveCriterion ?? 'n/a'} (bound ${t.collectiveCriterionUpper95 ?? 'n/a'})`);
+  if (c.individual !== undefined) out.push(`individual criterion ${smallRate(c.individual)}: judged per area`);
+  if (out.length === 0) out.push('no criteria given (risk.criteria)');
+  return out.join('; ');
+}
+
+/**
+ * The rest of the risk part: each mode's chance and impacts, and (when the areas table does not
+ * already carry them) the harm model, the standing distances and the total with the criteria.
+ */
+function riskBlocks(risk: RiskSummary, summary: SheetInput['summary'], u: UnitFormatter, shown: { standing: boolean; lines: boolean; harm: boolean }): Block[] {
+  const blocks: Block[] = [];
+  const st = risk.settings;
+  if (!shown.harm || !shown.lines) blocks.push({ kind: 'heading', text: 'Risk to people (per flight)' });
+  if (!shown.lines) blocks.push(riskLinesTable(risk, u));
+  const byName = new Map(summary.modes.map((m) => [m.name, m]));
+  const modes: Block = {
+    kind: 'table',
+    id: 'risk-modes',
+    columns: [
+      { title: 'Impacts by mode', weight: 1.7 },
+      { title: 'Chance per flight', weight: 1.1, align: 'right' },
+      { title: 'Samples', weight: 0.8, align: 'right' },
+      { title: 'Speed: median (95 %)', weight: 1.5, align: 'right' },
+      { title: 'Energy: median (95 %)', weight: 1.5, align: 'right' },
+      { title: st.casualtyEnergy_J !== null ? `Share at ${energy(st.casualtyEnergy_J, u)} or more` : 'Casualty chance', weight: 1.4, align: 'right' },
+    ],
+    rows: risk.modes.map((m) => [
+      m.name,
+      percent(byName.get(m.name)?.probability),
+      byName.has(m.name) ? grouped(byName.get(m.name)!.samples) : '-',
+      `${u.speed(m.impactSpeed_m_s.p50)} (${u.speed(m.impactSpeed_m_s.p95)})`,
+      `${energy(m.impactEnergy_J.p50, u)} (${energy(m.impactEnergy_J.p95, u)})`,
+      percent(m.harmfulShare),
+    ]),
+  };
+  blocks.push(modes);
+  const rows: { label: string; value: string }[] = [];
+  if (!shown.harm) rows.push({ label: 'Harm model', value: harmText(risk, u) });
+  if (!shown.standing) {
+    const d = risk.standingDistance_m;
+    rows.push({ label: 'Stand beyond', value: `risk under ${smallRate(risk.standingLevel)}: ${OCTANTS.map((o) => `${o} ${u.length(d[o])}`).join(', ')}${risk.standingResolved ? '' : ' (line not resolved)'}` });
+  }
+  const t = risk.total;
+  if (!shown.harm) rows.push({ label: 'All areas', value: `expected casualties ${smallRate(t.expectedCasualties)} per flight (95 % bound ${smallRate(t.upper95)}); ${criteriaText(risk)}` });
+  void st;
+  if (rows.length > 0) blocks.push({ kind: 'rows', rows });
   return blocks;
 }
+
+/** Impact energy in J in both unit systems, as the page, the terminal and the scenario's `risk` block give it. */
+function energy(j: number, _u: UnitFormatter): string {
+  return `${significant(j, 2)} J`;
+}
+
+/** Lengths along the rocket from the nose tip: mm or in, as a rocket's parts are measured. */
+function station(m: number, u: UnitFormatter): string {
+  return u.diameter(m);
+}
+
+/**
+ * The stability figures (summary.json `stability`) beside the side view drawn to scale, for a
+ * rocket with a shape; they close the inputs, as figures of the rocket described there. Wording as `strewn check` prints it (src/report/stability.ts).
+ */
+function stabilityBlocks(input: SheetInput, u: UnitFormatter, units: UnitSystem): Block[] {
+  const st = input.summary.stability;
+  const v = input.scenario.vehicle;
+  if (!st || v.kind !== 'rocket' || !v.shape || v.diameter === undefined) return [];
+  const shape = v.shape;
+  const diameter = v.diameter;
+  const rows: Block = {
+    kind: 'rows',
+    rows: [
+      { label: 'Centre of pressure', value: `${station(st.cp_m, u)} from the nose tip (Barrowman, subsonic)` },
+      { label: 'Balance point', value: `${station(st.cg_m, u)} at lift-off, ${station(st.cgBurnout_m, u)} at burnout` },
+      { label: 'Normal-force slope', value: `${significant(st.normalForceSlope_per_rad, 3)} per radian` },
+      { label: 'Static margin', value: `${significant(st.margin_cal, 3)} calibres at lift-off, ${significant(st.marginBurnout_cal, 3)} at burnout` },
+      { label: 'Rail exit', value: `${u.speed(st.railExitSpeed_m_s)}, angle of attack ${significant(st.railExitAngleOfAttack_deg, 3)}\u00b0 in the mean wind` },
+    ],
+  };
+  const a = input.summary.nominalApogee;
+  if (a) rows.rows.push(nominalApogeeRow(a, u));
+  const figure: Block = {
+    kind: 'figure',
+    draw: (x, y, width, size, measure) =>
+      sideView({ shape, diameter, cg: st.cg_m, cgBurnout: st.cgBurnout_m, cp: st.cp_m, marginCal: st.margin_cal }, x, y, width, { maxHeight: SIDE_VIEW_HEIGHT, size, units }, measure),
+  };
+  return [{ kind: 'columns', columns: [{ weight: 1.15, blocks: [rows] }, { weight: 1, blocks: [figure] }] }];
+}
+
+/** Where the nominal flight's apogee is (summary.json `nominalApogee`), as `strewn check` gives it. */
+function nominalApogeeRow(a: NonNullable<SheetInput['summary']['nominalApogee']>, u: UnitFormatter): { label: string; value: string } {
+  return { label: 'Nominal apogee', value: `${u.length(a.height_m)} above the pad, ${u.length(a.distance_m)} from it toward ${bearingText(a.bearing_deg)}` };
+}
+
+/** Tallest the side view may be, points: about as tall as the six figures beside it. */
+const SIDE_VIEW_HEIGHT = 56;
 
 function vehicleText(sc: Scenario, u: UnitFormatter): string {
   const v = sc.vehicle;
@@ -243,10 +365,14 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     { label: 'Failure modes', value: failuresText(sc) },
   );
   blocks.push({ kind: 'rows', rows: inputs });
+  const stability = stabilityBlocks(input, u, u.system);
+  const stabilityShown = stability.length > 0;
+  blocks.push(...stability);
 
   blocks.push({ kind: 'heading', text: 'Results' });
   const landed = s.modes.reduce((sum, m) => sum + (m.landed ?? 0), 0);
-  const modes = s.modes.length > 1 ? `; modes: ${s.modes.map((m) => `${m.name} ${percent(m.probability)} (${grouped(m.samples)} samples)`).join(', ')}, rare modes sampled more often and weighted back` : '';
+  const modesInTable = s.risk !== undefined && s.risk.modes.length === s.modes.length;
+  const modes = modesInTable && s.modes.length > 1 ? `; ${s.modes.length} modes (table below), rare modes sampled more often and weighted back` : s.modes.length > 1 ? `; modes: ${s.modes.map((m) => `${m.name} ${percent(m.probability)} (${grouped(m.samples)} samples)`).join(', ')}, rare modes sampled more often and weighted back` : '';
   const failed = s.failures.length > 0 ? ` (${s.failures.map((f) => `${grouped(f.samples)} ${f.reason}`).join(', ')})` : '';
   const spread5 = (x: { p05: number; p50: number; p95: number; max: number }, f: (v: number) => string) => `5 %: ${f(x.p05)}  \u00b7  median ${f(x.p50)}  \u00b7  95 %: ${f(x.p95)}  \u00b7  highest ${f(x.max)}`;
   const results: { label: string; value: string }[] = [
@@ -254,6 +380,8 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     { label: 'Apogee', value: `${spread5(s.apogee_m, (v) => u.length(v))} (above the pad)` },
     { label: 'Flight time', value: spread5(s.flightTime_s, (v) => (Number.isFinite(v) && v !== null ? `${significant(v, 3)} s` : 'n/a')) },
   ];
+  const a = s.nominalApogee;
+  if (a && !stabilityShown) results.push(nominalApogeeRow(a, u));
   if (s.farthestLanding) {
     const f = s.farthestLanding;
     results.push({ label: 'Farthest landing', value: `${u.length(f.distance_m)} from the pad toward ${bearingText(f.bearing_deg)} (sample ${f.sample}, ${f.mode})` });
@@ -263,14 +391,14 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
   if (s.contours.length === 0) {
     blocks.push({ kind: 'text', font: 'bold', text: 'No probability regions and no keep-out zone: too few samples landed to draw them. Run more samples before relying on this sheet.' });
   } else {
-    blocks.push({
+    const levels: Block = {
       kind: 'table',
       id: 'levels',
       columns: [
-        { title: 'Region holding', weight: 1.1 },
-        { title: 'Area', weight: 1.3, align: 'right' },
-        { title: 'Farthest from the pad', weight: 1.3, align: 'right' },
-        { title: 'Samples between it and the level inside', weight: 2, align: 'right' },
+        { title: 'Region holding', weight: 1.25 },
+        { title: 'Area', weight: 1, align: 'right' },
+        { title: 'Reaches', weight: 1.1, align: 'right' },
+        { title: 'Samples in its band', weight: 1.75, align: 'right' },
       ],
       rows: s.contours.map((c) => [
         `${levelText(c.level)} of landings`,
@@ -278,7 +406,9 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
         u.length(c.maxDistance_m),
         `${grouped(c.samplesInBand)}${c.samplesInBand < MIN_BAND_SAMPLES ? ' (few: line is uncertain)' : ''}`,
       ]),
-    });
+    };
+    // The landing regions and the individual-risk lines side by side: both are lines around the pad.
+    blocks.push(s.risk ? { kind: 'columns', columns: [{ weight: 1, blocks: [levels] }, { weight: 1, blocks: [riskLinesTable(s.risk, u)] }] } : levels);
   }
 
   const k = input.keepOut?.features[0]?.properties;
@@ -288,20 +418,25 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     blocks.push({
       kind: 'rows',
       rows: [
-        { label: 'Keep-out zone', value: `${u.area(k.area_m2)}, reaching ${u.length(k.maxDistance_m)} from the pad; made of: ${k.parts.map((p) => keepOutPart(p, u)).join(', ')}` },
-        { label: 'Landings outside it', value: `${percent(s.keepOut.outsideShare)} of flights (95 % bound ${percent(s.keepOut.outsideUpper95)})` },
-        { label: 'Zone outside the site', value: boundaryShare },
+        {
+          label: 'Keep-out zone',
+          value:
+            `${u.area(k.area_m2)}, reaching ${u.length(k.maxDistance_m)} from the pad; landings outside it: ${percent(s.keepOut.outsideShare)} of flights (95 % bound ${percent(s.keepOut.outsideUpper95)}); ` +
+            `zone outside the site: ${boundaryShare}; made of the ${WORDS.keepOutMadeOf(k.parts, levelText(k.level), k.margin_m > 0 ? u.length(k.margin_m) : null)} (parts in keepout.geojson)`,
+        },
       ],
     });
-    const octants = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'];
+    const rows = [['keep-out zone reaches', ...OCTANTS.map((o) => (k.octants_m[o] === null || k.octants_m[o] === undefined ? '-' : u.length(k.octants_m[o])))]];
+    if (s.risk) rows.push(standingRow(s.risk, u));
     blocks.push({
       kind: 'table',
       id: 'octants',
-      columns: [{ title: 'Keep-out reach by octant', weight: 2.2 }, ...octants.map((o) => ({ title: o, weight: 1, align: 'right' as const }))],
-      rows: [['farthest point from the pad', ...octants.map((o) => (k.octants_m[o] === null || k.octants_m[o] === undefined ? '-' : u.length(k.octants_m[o])))]],
+      columns: [{ title: 'By octant, from the pad', weight: 3.4 }, ...OCTANTS.map((o) => ({ title: o, weight: 1, align: 'right' as const }))],
+      rows,
     });
   }
 
+  let harmShown = false;
   if (sc.site.areas.length > 0 && s.areas.length === 0) {
     blocks.push({ kind: 'text', text: `Marked areas (${sc.site.areas.map((a) => a.name).join(', ')}) were not assessed: there is no analysis to assess them with.` });
   }
@@ -320,7 +455,8 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       { title: 'Touches zone', weight: 0.9, align: 'right' },
     ];
     if (anyPeople) columns.push({ title: 'People', weight: 0.8, align: 'right' }, { title: 'Expected casualties per flight (95 % bound)*', weight: 2.2, align: 'right' });
-    const showRisk = false; // in areas.csv, summary.json and the page; the record keeps two pages
+    const showRisk = risk !== undefined && risk.areas.length > 0;
+    if (showRisk) columns.push({ title: 'Largest individual risk', weight: 1.3, align: 'right' });
     const rows = s.areas.map((a, i) => {
       const r = byName.get(a.name);
       const row = [String(i + 1), a.name, a.kind, grouped(a.hits), percent(a.probability), percent(a.upper95), r ? (r.intersectsKeepOut ? 'yes' : 'no') : 'n/a'];
@@ -331,24 +467,29 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
       }
       if (showRisk && risk) {
         const ra = riskOf.get(a.name);
-        row.push(ra ? `${smallRate(ra.maxIndividualRisk)}${ra.individualCriterion ? (ra.individualCriterion.startsWith('under') ? ' under' : ' over') : ''}` : '-');
+        row.push(ra ? `${smallRate(ra.maxIndividualRisk)}${judged(ra.individualCriterion)}` : '-');
       }
       return row;
     });
+    // The risk model's total per flight closes the table, as a sum row.
+    if (anyPeople && risk) {
+      const total = new Array<string>(columns.length).fill('');
+      total[1] = 'All areas';
+      total[8] = `${smallRate(risk.total.expectedCasualties)} (${smallRate(risk.total.upper95)})`;
+      rows.push(total);
+    }
     blocks.push({ kind: 'table', id: 'areas', columns, rows });
     if (anyPeople) {
+      const model = risk ? `${harmText(risk, u)}; ${criteriaText(risk)}` : 'an impact harms those within its casualty area (from the impact angle) when its energy reaches the casualty energy';
       blocks.push({
         kind: 'text',
         font: 'italic',
-        text:
-          '* Not a compliance figure: people spread evenly over the area, each impact harming those within its casualty area ' +
-          '(from the impact angle) when its energy reaches the casualty energy; all modes counted. The bound is one-sided 95 %.',
+        text: `* Not a compliance figure: people spread evenly; all modes; one-sided 95 % bound. Harm: ${model}.`,
       });
     }
+    harmShown = anyPeople && risk !== undefined;
   }
-  // The risk lines and standing distances are in summary.json, the map legend and the page; the
-  // record keeps two pages.
-  void riskBlocks;
+  if (s.risk) blocks.push(...riskBlocks(s.risk, s, u, { standing: k !== undefined, lines: s.contours.length > 0, harm: harmShown }));
 
   const sensitivity = s.sensitivity;
   if (sensitivity && sensitivity.inputs.length > 0) {
@@ -358,24 +499,23 @@ export function recordBlocks(input: SheetInput, u: UnitFormatter, limits: Record
     blocks.push({ kind: 'text', font: 'italic', text: sensitivityNote(sensitivity.method, sensitivity.inputs.length - shown) });
   }
 
+  // The warnings beside the signatures, and under them what reproduces the run (full width: the
+  // hash must not break): the signed record names what was assessed and what was known against it.
   const warnings = [...replacedCharacterNote(input), ...s.warnings, ...s.scenarioWarnings];
+  const signOff: Block[] = [{ kind: 'heading', text: 'Review and sign-off' }, { kind: 'signoff' }];
   if (warnings.length > 0) {
-    blocks.push({ kind: 'heading', text: 'Warnings' });
     const shown = warnings.slice(0, limits.warnings);
     if (warnings.length > shown.length) shown.push(`${warnings.length - shown.length} more in summary.json`);
-    blocks.push({ kind: 'bullets', items: shown });
+    blocks.push({ kind: 'columns', columns: [{ weight: 1.1, blocks: [{ kind: 'heading', text: 'Warnings' }, { kind: 'bullets', items: shown }] }, { weight: 1, blocks: signOff }] });
+  } else {
+    blocks.push(...signOff);
   }
-
-  blocks.push({ kind: 'heading', text: 'Reproducibility' });
   blocks.push({
     kind: 'rows',
     rows: [
-      { label: 'Samples and seed', value: `${grouped(s.samples)} samples, seed ${s.seed}` },
       { label: 'Scenario hash', value: s.scenarioHash, font: 'mono' },
-      { label: 'Program', value: `strewn ${s.version}; computed ${dateText(review.computedAt)}` },
+      { label: 'Reproduce with', value: `${grouped(s.samples)} samples, seed ${s.seed}; strewn ${s.version}, computed ${dateText(review.computedAt)}` },
     ],
   });
-  blocks.push({ kind: 'heading', text: 'Review and sign-off' });
-  blocks.push({ kind: 'signoff' });
   return blocks;
 }

@@ -30,6 +30,8 @@ const STYLES: Style[] = [
   // Still 8 pt type, set closer: lets a full record (sensitivity bars and all) stay on one page of
   // US Letter, which is 50 pt shorter than A4.
   { size: 8, leading: 1.12, headingGap: 6, blockGap: 3 },
+  // The closest setting, for a full record on US Letter in feet (longer unit texts wrap more).
+  { size: 8, leading: 1.1, headingGap: 4, blockGap: 2 },
 ];
 
 // Fewer sensitivity bars go first (summary.json and the web page have them all), the user's own
@@ -43,8 +45,15 @@ const LIMITS: RecordLimits[] = [
   { noteLines: 1, warnings: 2, sensitivityInputs: 2 },
 ];
 
+/** Widest the label column of label/value rows gets; narrower when every label is short. */
 const LABEL_WIDTH = 92;
-const SIGN_OFF_HEIGHT = 3 * 24 + 6 + 22 + 4;
+
+/** The label column for these blocks' rows: the longest bold label and a gap, at most LABEL_WIDTH. */
+function labelWidth(blocks: readonly Block[], size: number, measure: TextMeasure): number {
+  let widest = 0;
+  for (const b of blocks) if (b.kind === 'rows') for (const r of b.rows) widest = Math.max(widest, measure(toWinAnsi(r.label), size, 'bold'));
+  return Math.min(LABEL_WIDTH, Math.ceil(widest + 8));
+}
 
 /** Writes blocks down the page, starting a new page when the next piece would pass `limit`. */
 class Flow {
@@ -58,6 +67,7 @@ class Flow {
     private readonly top: number,
     private readonly limit: number,
     private readonly style: Style,
+    private readonly labels = LABEL_WIDTH,
   ) {
     this.y = top;
   }
@@ -116,13 +126,13 @@ class Flow {
 
   rows(rows: { label: string; value: string; font?: FontName }[]): void {
     for (const r of rows) {
-      const lines = wrapText(this.measure, toWinAnsi(r.value), this.style.size, r.font ?? 'regular', this.width - LABEL_WIDTH);
+      const lines = wrapText(this.measure, toWinAnsi(r.value), this.style.size, r.font ?? 'regular', this.width - this.labels);
       this.fit(lines.length * this.step + 1);
       this.y += this.style.size * CAP_HEIGHT + 1;
       this.text(toWinAnsi(r.label), this.x, 'bold', INK_SOFT);
       lines.forEach((l, i) => {
         if (i > 0) this.y += this.step;
-        this.text(l, this.x + LABEL_WIDTH, r.font ?? 'regular');
+        this.text(l, this.x + this.labels, r.font ?? 'regular');
       });
       this.y += this.step - this.style.size * CAP_HEIGHT;
     }
@@ -199,28 +209,72 @@ class Flow {
     this.y += height;
   }
 
-  /** Blank lines to write on: who prepared and reviewed the assessment, when, and the decision. */
-  signOff(): void {
-    this.fit(SIGN_OFF_HEIGHT);
-    const rowHeight = 24;
-    const half = (this.width - 20) / 2;
-    const fields: [string, string][] = [
-      ['Prepared by', 'Signature'],
-      ['Reviewed by (safety officer)', 'Signature'],
-      ['Date', 'Decision (go / go with conditions / no go)'],
-    ];
-    const shapes: Shape[] = [];
-    for (const pair of fields) {
-      this.y += rowHeight - 8;
-      pair.forEach((label, i) => {
-        const x = this.x + i * (half + 20);
-        shapes.push({ kind: 'path', className: 'signoff-line', d: [['M', x, this.y], ['L', x + half, this.y]], stroke: { color: INK, width: 0.7 } });
-        shapes.push({ kind: 'text', x, y: this.y + 8.5, text: label, size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
+  /**
+   * Blocks side by side, kept whole on one page: each column is laid out in a flow of its own
+   * (once to learn the heights, then where it lands), and the page flow continues below the
+   * tallest.
+   */
+  columns(columns: { weight: number; blocks: Block[] }[], put: (flow: Flow, block: Block) => void): void {
+    const gutter = 14;
+    const total = columns.reduce((sum, c) => sum + c.weight, 0);
+    const free = this.width - gutter * (columns.length - 1);
+    const widths = columns.map((c) => (c.weight / total) * free);
+    const run = (top: number) => {
+      let left = this.x;
+      return columns.map((c, i) => {
+        // A wide column keeps the page's label column, so its values line up with the rows above.
+        const own = labelWidth(c.blocks, this.style.size, this.measure);
+        const sub = new Flow(this.measure, left, widths[i]!, top, Infinity, this.style, own <= this.labels && widths[i]! > 0.6 * this.width ? this.labels : own);
+        left += widths[i]! + gutter;
+        for (const b of c.blocks) put(sub, b);
+        return sub;
       });
+    };
+    const height = Math.max(...run(0).map((f) => f.y));
+    this.gap(this.style.blockGap / 2);
+    this.fit(height);
+    const placed = run(this.y);
+    for (const f of placed) this.shapes.push(...f.pages[0]!);
+    this.y = Math.max(...placed.map((f) => f.y));
+  }
+
+  /**
+   * Blank lines to write on: who prepared and reviewed the assessment, their signatures, the date
+   * and the decision, three to a row, then a line for conditions.
+   */
+  signOff(): void {
+    // Full width: three fields a row; in a column the decision goes with the conditions line.
+    const wide = this.width > 400;
+    // 22 points (nearly 8 mm) to write on per line.
+    const rowHeight = 22;
+    const gap = 14;
+    const fields: [string, number][][] = wide
+      ? [
+          [['Prepared by', 1], ['Signature', 0.8], ['Date', 1.2]],
+          [['Reviewed by (safety officer)', 1], ['Signature', 0.8], ['Decision (go / go with conditions / no go)', 1.2]],
+        ]
+      : [
+          [['Prepared by', 1.1], ['Signature', 1], ['Date', 0.75]],
+          [['Reviewed by (safety officer)', 1.1], ['Signature', 1.75]],
+        ];
+    this.fit(fields.length * rowHeight + 6 + 22 + 4);
+    const shapes: Shape[] = [];
+    for (const row of fields) {
+      this.y += rowHeight - 8;
+      const total = row.reduce((s, f) => s + f[1], 0);
+      const free = this.width - gap * (row.length - 1);
+      let x = this.x;
+      for (const [label, weight] of row) {
+        const w = (weight / total) * free;
+        shapes.push({ kind: 'path', className: 'signoff-line', d: [['M', x, this.y], ['L', x + w, this.y]], stroke: { color: INK, width: 0.7 } });
+        shapes.push({ kind: 'text', x, y: this.y + 8.5, text: label, size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
+        x += w + gap;
+      }
       this.y += 8;
     }
     this.y += 6;
-    shapes.push({ kind: 'text', x: this.x, y: this.y + 8 * CAP_HEIGHT, text: 'Conditions and notes:', size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
+    const last = wide ? 'Conditions and notes:' : 'Decision (go / go with conditions / no go), conditions and notes:';
+    shapes.push({ kind: 'text', x: this.x, y: this.y + 8 * CAP_HEIGHT, text: last, size: 8, font: 'regular', anchor: 'start', color: INK_SOFT });
     this.y += 8 + 14;
     shapes.push({ kind: 'path', className: 'signoff-line', d: [['M', this.x, this.y], ['L', this.x + this.width, this.y]], stroke: { color: INK, width: 0.7 } });
     this.y += 4;
@@ -233,37 +287,44 @@ function particulars(input: SheetInput): string {
   return ['Review record', `${grouped(s.samples)} samples, seed ${s.seed}`, `computed ${dateText(input.review.computedAt)}`, `strewn ${s.version}`].join('  \u00b7  ');
 }
 
+/** Puts one block into a flow. */
+function place(flow: Flow, block: Block, style: Style): void {
+  switch (block.kind) {
+    case 'heading':
+      flow.heading(block.text, block.aside);
+      break;
+    case 'text':
+      flow.gap(style.blockGap / 2);
+      flow.paragraph(block.text, block.font ?? 'regular', 0, block.font === 'italic' ? INK_SOFT : INK);
+      break;
+    case 'rows':
+      flow.rows(block.rows);
+      break;
+    case 'table':
+      flow.gap(style.blockGap / 2);
+      flow.table(block.id, block.columns, block.rows);
+      break;
+    case 'bullets':
+      flow.bullets(block.items);
+      break;
+    case 'figure':
+      flow.figure(block.draw);
+      break;
+    case 'columns':
+      flow.columns(block.columns, (sub, b) => place(sub, b, style));
+      break;
+    case 'signoff':
+      flow.signOff();
+      break;
+  }
+}
+
 /** Lays the record out; returns the body shapes of each page. */
 function layout(input: SheetInput, options: SheetOptions, style: Style, limits: RecordLimits, top: number, limit: number): Shape[][] {
   const width = PAPER_SIZES[options.paper].width - 2 * MARGIN;
-  const flow = new Flow(options.measure, MARGIN, width, top, limit, style);
-  for (const block of recordBlocks(input, unitFormatter(options.units), limits)) {
-    switch (block.kind) {
-      case 'heading':
-        flow.heading(block.text, block.aside);
-        break;
-      case 'text':
-        flow.gap(style.blockGap / 2);
-        flow.paragraph(block.text, block.font ?? 'regular', 0, block.font === 'italic' ? INK_SOFT : INK);
-        break;
-      case 'rows':
-        flow.rows(block.rows);
-        break;
-      case 'table':
-        flow.gap(style.blockGap / 2);
-        flow.table(block.id, block.columns, block.rows);
-        break;
-      case 'bullets':
-        flow.bullets(block.items);
-        break;
-      case 'figure':
-        flow.figure(block.draw);
-        break;
-      case 'signoff':
-        flow.signOff();
-        break;
-    }
-  }
+  const blocks = recordBlocks(input, unitFormatter(options.units), limits);
+  const flow = new Flow(options.measure, MARGIN, width, top, limit, style, labelWidth(blocks, style.size, options.measure));
+  for (const block of blocks) place(flow, block, style);
   return flow.pages;
 }
 

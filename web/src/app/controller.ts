@@ -3,6 +3,7 @@ import { DEMOS } from '../scenario/demos.js';
 import { keepWorkspace } from '../scenario/persist.js';
 import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenario/read-files.js';
 import { validateDocument } from '../scenario/validate.js';
+import { isBinaryFile, readBinaryFiles } from '../scenario/ground-files.js';
 import { composeStudy } from '../study/compose.js';
 import { redrawReviewSheet } from '../study/review-sheet.js';
 import { isCancellation, runEngine } from '../study/engine.js';
@@ -49,6 +50,12 @@ export class Controller implements Actions {
     this.applyDraft(change(this.store.get().draft));
   }
 
+  /** Forecast and terrain files loaded for the scenario being edited (by name; see ground-files.ts). */
+  async attachFiles(files: readonly File[]): Promise<void> {
+    const binaries = await readBinaryFiles(files, this.store.get().draft.binaries);
+    this.applyDraft({ ...this.store.get().draft, binaries });
+  }
+
   /** A pad dragged on the map; 7 decimals of a degree is about a centimetre. */
   movePad(lon: number, lat: number): void {
     const round = (x: number) => Number(x.toFixed(7));
@@ -79,6 +86,8 @@ export class Controller implements Actions {
   }
 
   async openFiles(files: readonly File[]): Promise<void> {
+    // Only forecast or terrain files (dropped, say): they belong to the scenario already open.
+    if (files.length > 0 && files.every((f) => isBinaryFile(f.name))) return this.attachFiles(files);
     this.take(await openScenarioFiles(files));
   }
 

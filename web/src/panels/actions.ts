@@ -10,6 +10,8 @@ export interface Actions {
   editField(path: FieldPath, value: unknown): void;
   /** A change of the draft's structure (a stage added, a list reordered), validated like a field. */
   editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void;
+  /** Forecast and terrain files for the scenario being edited (Site tab, or dropped). */
+  attachFiles(files: readonly File[]): Promise<void>;
   openFiles(files: readonly File[]): Promise<void>;
   openDemo(id: string): void;
   dismissRefused(): void;

@@ -2,7 +2,7 @@ import { el } from './dom.js';
 
 /** Files dropped anywhere on the page are opened as a scenario (plus the files it refers to). */
 export function installDropTarget(target: HTMLElement, open: (files: File[]) => void | Promise<void>): void {
-  const overlay = el('div', { class: 'drop-overlay', attrs: { 'aria-hidden': 'true' } }, el('p', { text: 'Drop a scenario file (and its motor CSV) to open it' }));
+  const overlay = el('div', { class: 'drop-overlay', attrs: { 'aria-hidden': 'true' } }, el('p', { text: 'Drop a scenario file (and its motor CSV) to open it, or a forecast (GRIB2) or terrain (GeoTIFF) file for the scenario open' }));
   overlay.hidden = true;
   target.appendChild(overlay);
   let depth = 0;

@@ -24,7 +24,7 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
   const demoButton = el('button', { text: 'Open demo', attrs: { type: 'button' } });
   demoButton.addEventListener('click', () => actions.openDemo(demoSelect.value));
 
-  const fileInput = el('input', { class: 'visually-hidden', attrs: { type: 'file', id: 'scenario-file-input', 'aria-label': 'Scenario file and the files it refers to', tabindex: '-1', accept: '.json,.csv,application/json,text/csv', multiple: '' } });
+  const fileInput = el('input', { class: 'visually-hidden', attrs: { type: 'file', id: 'scenario-file-input', 'aria-label': 'Scenario file and the files it refers to', tabindex: '-1', accept: '.json,.csv,.grib2,.grb2,.tif,.tiff,application/json,text/csv', multiple: '' } });
   fileInput.addEventListener('change', () => {
     const files = Array.from(fileInput.files ?? []);
     fileInput.value = '';

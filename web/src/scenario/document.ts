@@ -4,6 +4,8 @@
  * scenario, so "save" gives back a file in the user's own units that the command line reads too.
  */
 
+import type { BinaryFiles } from './ground-files.js';
+
 /** Texts of the files a scenario refers to (a CSV thrust curve), by the path the scenario writes. */
 export type AttachedFiles = Readonly<Record<string, string>>;
 
@@ -13,6 +15,8 @@ export interface ScenarioDocument {
   readonly files: AttachedFiles;
   /** Name to save under, e.g. "club-rocket.json". */
   readonly fileName: string;
+  /** Binary files it refers to (a GRIB2 forecast, a GeoTIFF terrain), never saved with the JSON. */
+  readonly binaries?: BinaryFiles;
 }
 
 /** A place in the JSON: object keys and array indices (uncertainty names keep their dots). */

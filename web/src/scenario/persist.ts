@@ -15,7 +15,8 @@ export interface KeptWorkspace {
 
 export function keepWorkspace(kept: KeptWorkspace, storage: Storage | null = safeStorage()): void {
   try {
-    storage?.setItem(KEY, JSON.stringify(kept));
+    // Forecast and terrain bytes are not kept (they may be large): after a reload they are loaded again.
+    storage?.setItem(KEY, JSON.stringify(kept, (key, value: unknown) => (key === 'binaries' ? undefined : value)));
   } catch {
     // Quota exceeded or storage disabled: the page still works, it only forgets on reload.
   }

@@ -3,6 +3,7 @@ import { parseJsonText } from '../../../src/scenario/json-text.js';
 import type { Issue } from '../../../src/scenario/types.js';
 import type { ScenarioDocument } from './document.js';
 import { validateDocument, type AcceptedScenario } from './validate.js';
+import { isBinaryFile, readBinaryFiles, type BinaryFiles } from './ground-files.js';
 
 /** What opening files gave: a scenario to use, or the problems of the file that was refused. */
 export type OpenOutcome = { ok: true; accepted: AcceptedScenario } | { ok: false; fileName: string; issues: Issue[] };
@@ -24,12 +25,14 @@ export async function openScenarioFiles(files: readonly File[]): Promise<OpenOut
   }
   const main = scenarios[0]!;
   const attached: Record<string, string> = {};
-  for (const file of files) if (file !== main) attached[file.name] = await file.text();
-  return openScenarioText(await main.text(), main.name, attached);
+  for (const file of files) if (file !== main && !isBinaryFile(file.name)) attached[file.name] = await file.text();
+  // A forecast or terrain file opened with it is kept as bytes (and a GeoTIFF decoded).
+  const binaries = files.some((f) => isBinaryFile(f.name)) ? await readBinaryFiles(files) : undefined;
+  return openScenarioText(await main.text(), main.name, attached, binaries);
 }
 
 /** Same as openScenarioFiles, from text already read (the demos, the kept working copy). */
-export function openScenarioText(text: string, fileName: string, files: Record<string, string>): OpenOutcome {
+export function openScenarioText(text: string, fileName: string, files: Record<string, string>, binaries?: BinaryFiles): OpenOutcome {
   let json: unknown;
   try {
     json = parseJsonText(text, fileName);
@@ -37,7 +40,7 @@ export function openScenarioText(text: string, fileName: string, files: Record<s
     if (error instanceof ScenarioError) return { ok: false, fileName, issues: error.issues };
     throw error;
   }
-  const document: ScenarioDocument = { json, files, fileName };
+  const document: ScenarioDocument = binaries ? { json, files, fileName, binaries } : { json, files, fileName };
   const validation = validateDocument(document);
   return validation.ok ? validation : { ok: false, fileName, issues: validation.issues };
 }

@@ -5,6 +5,7 @@ import type { Issue, Scenario } from '../../../src/scenario/types.js';
 import { nominalFlight, type NominalFlight } from '../study/nominal.js';
 import { nominalFigures, type NominalFigures } from '../../../src/report/stability.js';
 import { attachedFileReader, type ScenarioDocument } from './document.js';
+import { binaryReader, demsFor } from './ground-files.js';
 
 /**
  * The page's sample cap. The command line allows ten million; in a browser tab the result arrays
@@ -31,6 +32,8 @@ export function validateDocument(document: ScenarioDocument): Validation {
   try {
     const { scenario, warnings } = parseScenario(document.json, {
       readText: attachedFileReader(document.files),
+      readBytes: binaryReader(document.binaries),
+      dems: demsFor(document.json, document.binaries),
       maxSamples: PAGE_MAX_SAMPLES,
     });
     const nominal = nominalFlight(scenario);
