@@ -94,8 +94,9 @@ function overlayLayers(): LayerSpecification[] {
     ...[0, 1, 2].map((k) => ({ id: `event-risk-${k}`, type: 'line', source: S.eventRisk, filter: ['==', ['get', 'index'], k], layout: { 'line-join': 'round' }, paint: paint(screenLine(riskLineSymbol(k))) })),
     { id: 'event-pad', type: 'circle', source: S.eventPads, paint: { 'circle-color': '#FFFFFF', 'circle-radius': SYMBOLS.pad.radius * 1.4, 'circle-stroke-color': SYMBOLS.pad.ring, 'circle-stroke-width': SYMBOLS.pad.ringWidth * 1.4 } },
     { id: 'event-pad-centre', type: 'circle', source: S.eventPads, paint: { 'circle-color': SYMBOLS.pad.ring, 'circle-radius': SYMBOLS.pad.centre * 1.4 } },
+    // Under the area labels: maplibre places the top layer's labels first, and an area's figures matter more than the zone's name (the key names it too).
+    { id: 'event-zone-label', type: 'symbol', source: S.eventZoneLabels, layout: { ...label, 'text-size': 13, 'text-variable-anchor': ['top', 'bottom', 'left', 'right'], 'text-radial-offset': 0.5, 'text-allow-overlap': false }, paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     { id: 'event-area-label', type: 'symbol', source: S.eventAreaLabels, layout: { ...label, 'text-size': 12 }, paint: { 'text-color': '#1A1A1A', 'text-halo-color': '#FFFFFF', 'text-halo-width': 1.6 } },
-    { id: 'event-zone-label', type: 'symbol', source: S.eventZoneLabels, layout: { ...label, 'text-size': 13, 'text-anchor': ['get', 'anchor'], 'text-radial-offset': 0.5, 'text-allow-overlap': true }, paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ] as LayerSpecification[];
 }
 
