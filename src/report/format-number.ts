@@ -124,7 +124,7 @@ export function unitFormatter(system: UnitSystem): UnitFormatter {
  * One decimal below 10, whole numbers from 10 (4.9, 8.0, 18, 130): what a person reads off a
  * gauge. Hand-written because Intl rounding options differ between Node and browser versions.
  */
-function readable(x: number): string {
+export function readable(x: number): string {
   return Math.abs(x) < 9.95 ? grouped(x, 1) : grouped(x);
 }
 

@@ -47,7 +47,7 @@ function boot(): void {
     ...initial,
     refused: initial.refused ?? null,
     documentVersion: 0,
-    units: recallUnits(),
+    units: recallUnits(initial.accepted.scenario.run.units),
     run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
     study: null,
     envelope: IDLE_ENVELOPE,

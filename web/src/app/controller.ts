@@ -5,7 +5,7 @@ import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenar
 import { validateDocument } from '../scenario/validate.js';
 import { isBinaryFile, readBinaryFiles } from '../scenario/ground-files.js';
 import { composeStudy } from '../study/compose.js';
-import { redrawReviewSheet } from '../study/review-sheet.js';
+import { redrawMapSvg, redrawReviewSheet } from '../study/review-sheet.js';
 import { isCancellation, runEngine } from '../study/engine.js';
 import { download } from '../exports/download.js';
 import type { Background } from '../map/tiles.js';
@@ -69,6 +69,7 @@ export class Controller implements Actions {
       this.running?.abort();
       this.computingEnvelope?.abort();
       const state = this.store.get();
+      const named = outcome.accepted.scenario.run.units;
       this.store.update({
         draft: outcome.accepted.document,
         accepted: outcome.accepted,
@@ -78,7 +79,11 @@ export class Controller implements Actions {
         study: null,
         run: { phase: 'idle', done: 0, total: 0, rate: 0, message: '' },
         envelope: IDLE_ENVELOPE,
+        // A scenario that names its units is shown in them (as `strewn run` prints it without
+        // --units); the switch at the top still changes them afterwards.
+        units: named ?? state.units,
       });
+      if (named !== undefined) keepUnits(named);
       this.keep();
     } else {
       this.store.update({ refused: { fileName: outcome.fileName, issues: outcome.issues } });
@@ -181,6 +186,11 @@ export class Controller implements Actions {
     const outcome = envelope.outcome;
     const record = outcome && outcome.hash === study.accepted.hash ? { envelope: outcome.envelope, scenarioHash: outcome.hash, version: VERSION, computedAt: outcome.computedAt } : undefined;
     download(`sheet-${units}-${paper}.pdf`, await redrawReviewSheet(study, paper, units, record));
+  }
+
+  async exportMapSvg(paper: 'a4' | 'letter'): Promise<void> {
+    const { study, units } = this.store.get();
+    if (study) download(`map-${units}-${paper}.svg`, await redrawMapSvg(study, paper, units));
   }
 
   /** Computes the wind limits of the accepted scenario over `grid`, one grid point after another. */

@@ -91,11 +91,27 @@ export class LegendControl implements IControl {
   // A disclosure, so the legend can be folded away when it covers part of the map.
   private readonly box = el('details', { class: 'maplibregl-ctrl legend', attrs: { open: '' }, data: { test: 'legend' } }, el('summary', { text: 'Legend' }), this.list);
 
+  /** Whether the reader had it open before printing (a print shows it open, then it is put back). */
+  private openBeforePrint: boolean | null = null;
+  private readonly printOpen = () => {
+    // Kept from the first of nested print events (a print may follow a print preview).
+    this.openBeforePrint ??= this.element.open;
+    this.element.open = true;
+  };
+  private readonly printDone = () => {
+    if (this.openBeforePrint !== null) this.element.open = this.openBeforePrint;
+    this.openBeforePrint = null;
+  };
+
   onAdd(): HTMLElement {
+    window.addEventListener('beforeprint', this.printOpen);
+    window.addEventListener('afterprint', this.printDone);
     return this.box;
   }
 
   onRemove(): void {
+    window.removeEventListener('beforeprint', this.printOpen);
+    window.removeEventListener('afterprint', this.printDone);
     this.box.remove();
   }
 
@@ -115,6 +131,12 @@ export class LegendControl implements IControl {
       items.push(item(areaSwatch(KEEP_OUT_FILL.color, KEEP_OUT_FILL.opacity ?? 1, KEEP_OUT), `${WORDS.keepOut}: ${WORDS.keepOutMadeOf(k.parts, level(k.level), k.margin)}`, 'keep-out'));
     }
     content.levels.forEach((p, i) => items.push(item(lineSwatch(contourStyle(i)), WORDS.contour(level(p)), 'contour')));
+    // The results first (the list may scroll on a small map): landings, then risk, then the site.
+    content.modes.forEach((name, m) => items.push(item(markerSwatch(m), WORDS.landings(name), 'landings')));
+    if (content.risk) {
+      content.risk.levels.forEach((l, i) => items.push(item(lineSwatch(riskStyle(i)), WORDS.riskLine(smallRate(l.level), l.resolved), 'risk-line')));
+      items.push(item(lineSwatch(STANDING), WORDS.standing(smallRate(content.risk.standingLevel), content.risk.standingResolved), 'standing'));
+    }
     items.push(item(padSwatch(), `${WORDS.pad} (drag to move)`, 'pad'));
     items.push(item(lineSwatch(RINGS), WORDS.rings, 'rings'));
     if (content.hasBoundary) items.push(item(lineSwatch(BOUNDARY), WORDS.boundary, 'boundary'));
@@ -124,11 +146,6 @@ export class LegendControl implements IControl {
       const a = areaStyle(kind);
       items.push(item(areaSwatch(a.fill, a.opacity, a.line), a.label, `area-${kind}`));
     }
-    if (content.risk) {
-      content.risk.levels.forEach((l, i) => items.push(item(lineSwatch(riskStyle(i)), WORDS.riskLine(smallRate(l.level), l.resolved), 'risk-line')));
-      items.push(item(lineSwatch(STANDING), WORDS.standing(smallRate(content.risk.standingLevel), content.risk.standingResolved), 'standing'));
-    }
-    content.modes.forEach((name, m) => items.push(item(markerSwatch(m), WORDS.landings(name), 'landings')));
     replaceChildren(this.list, ...items);
   }
 }

@@ -157,9 +157,15 @@ export function offlineStyle(): StyleSpecification {
     },
     { id: 'basemap-label', type: 'symbol', source: SOURCES.basemapLabels, layout: label(11, { 'text-letter-spacing': 0.04 }), paint: { ...halo, 'text-color': '#5B6B45' } },
     { id: 'ring-label', type: 'symbol', source: SOURCES.ringLabels, layout: label(11, { 'text-offset': [0, -0.6] }), paint: { ...halo, 'text-color': RINGS.color } },
-    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false, 'text-max-width': 22 }), paint: { ...halo, 'text-color': '#1A1A1A' } },
+    // A marked area's label (its chance) moves beside the area when a higher label covers its centre.
+    { id: 'area-label', type: 'symbol', source: SOURCES.areaLabels, layout: label(12, { 'text-allow-overlap': false, 'text-max-width': 22, 'text-variable-anchor': ['center', 'top', 'bottom', 'left', 'right'], 'text-radial-offset': 0.9, 'text-justify': 'auto' }), paint: { ...halo, 'text-color': '#1A1A1A' } },
     { id: 'track-label', type: 'symbol', source: SOURCES.trackLabels, layout: label(11, { 'text-anchor': 'bottom', 'text-offset': [0, -0.5] }), paint: { ...halo, 'text-color': TRACK.color } },
     { id: 'track-apogee', type: 'circle', source: SOURCES.trackLabels, paint: { 'circle-color': '#FFFFFF', 'circle-radius': 4, 'circle-stroke-color': TRACK.color, 'circle-stroke-width': 2 } },
+    // Symbol layers higher in this list are placed first and win a collision: the zone's label, then
+    // the contour labels, then the risk labels (the legend names every line, so a label left out
+    // on a small cloud loses no meaning). The risk lines nest around the same cloud as the
+    // probability regions, whose labels sit at the tops too: a risk label takes a free side.
+    { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-variable-anchor': ['left', 'right', 'top-left', 'top-right', 'bottom-left', 'bottom-right'], 'text-radial-offset': 0.5, 'text-justify': 'auto', 'text-padding': 3 }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     {
       id: 'contour-label',
       type: 'symbol',
@@ -169,7 +175,6 @@ export function offlineStyle(): StyleSpecification {
       layout: label(13, { 'text-anchor': 'bottom', 'text-allow-overlap': false, 'text-padding': 4, 'symbol-sort-key': ['-', 100, ['get', 'index']] }),
       paint: { 'text-color': byLevelIndex((i) => contourLabelSymbolColor(i)), 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 },
     },
-    { id: 'risk-label', type: 'symbol', source: SOURCES.riskLabels, layout: label(12, { 'text-anchor': 'left', 'text-offset': [0.4, 0] }), paint: { 'text-color': STANDING.color, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
     { id: 'keepout-label', type: 'symbol', source: SOURCES.keepOutLabel, layout: label(13, { 'text-anchor': 'top', 'text-allow-overlap': true }), paint: { 'text-color': SYMBOLS.keepOut.labelColor, 'text-halo-color': '#FFFFFF', 'text-halo-width': 2 } },
   ];
   return {

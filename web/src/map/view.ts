@@ -233,10 +233,17 @@ export class MapView {
     const pad = this.scene?.accepted.scenario.site.pad;
     if (pad) keep.push(rectAround(pad.lon, pad.lat, 40, 40));
     const w = box.offsetWidth;
-    const h = box.offsetHeight;
-    const costOf = (corner: Corner): number => {
+    const natural = Math.max(box.scrollHeight, box.offsetHeight);
+    const othersIn = (corner: Corner): number => {
       const holder = container.querySelector<HTMLElement>(`.maplibregl-ctrl-${corner}`);
-      const others = holder ? [...holder.children].filter((c) => c !== box).reduce((sum, c) => sum + (c as HTMLElement).offsetHeight + 10, 0) : 0;
+      return holder ? [...holder.children].filter((c) => c !== box).reduce((sum, c) => sum + (c as HTMLElement).offsetHeight + 10, 0) : 0;
+    };
+    // Never taller than the map leaves in its corner's column (the list scrolls instead): a legend
+    // taller than the map would push its fold control off the map, under the page's top bar.
+    const room = (corner: Corner): number => Math.max(60, Math.min(height - othersIn(corner) - 20, 0.6 * window.innerHeight));
+    const costOf = (corner: Corner): number => {
+      const others = othersIn(corner);
+      const h = Math.min(natural, room(corner));
       const x = corner.endsWith('left') ? 10 : width - w - 10;
       const y = corner.startsWith('top') ? others + 10 : height - others - h - 10;
       const r = { x, y, w, h };
@@ -259,6 +266,7 @@ export class MapView {
         else holder.append(box);
       }
     }
+    box.style.maxHeight = `${Math.floor(room(best))}px`;
     box.dataset.corner = best;
   }
   private legendFoldDecided = false;

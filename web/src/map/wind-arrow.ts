@@ -1,7 +1,7 @@
 import type { IControl, Map as MapLibreMap } from 'maplibre-gl';
 import type { Wind } from '../../../src/scenario/types.js';
 import { el } from '../panels/dom.js';
-import { inUnit } from '../units/format.js';
+import { readable } from '../../../src/report/format-number.js';
 import type { Unit } from '../units/systems.js';
 
 const SVG = 'http://www.w3.org/2000/svg';
@@ -52,9 +52,11 @@ export class WindArrowControl implements IControl {
 
   show(wind: Wind, speed: Unit): void {
     this.from = wind.from;
-    const gust = wind.gust === undefined ? '' : `, gusts ${inUnit(wind.gust, speed, 1)}`;
-    this.caption.textContent = `Wind from ${Math.round(wind.from)}° · ${inUnit(wind.speed, speed, 1)}${gust}`;
-    this.box.setAttribute('aria-label', `Wind blowing from ${Math.round(wind.from)} degrees at ${inUnit(wind.speed, speed, 1)}${gust}`);
+    // Rounded for reading, as everywhere (4.9 m/s, 11 mph): src/report/format-number.ts.
+    const says = (si: number) => `${readable(si / speed.si)} ${speed.label}`;
+    const gust = wind.gust === undefined ? '' : `, gusts ${says(wind.gust)}`;
+    this.caption.textContent = `Wind from ${Math.round(wind.from)}° · ${says(wind.speed)}${gust}`;
+    this.box.setAttribute('aria-label', `Wind blowing from ${Math.round(wind.from)} degrees at ${says(wind.speed)}${gust}`);
     this.turn();
   }
 

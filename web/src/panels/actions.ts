@@ -22,6 +22,8 @@ export interface Actions {
   setUnits(units: UnitSystem): void;
   exportFile(name: string): void;
   exportReviewSheet(paper: 'a4' | 'letter'): Promise<void>;
+  /** The sheet's map page alone (map.svg), in the page's units on `paper`. */
+  exportMapSvg(paper: 'a4' | 'letter'): Promise<void>;
   setBackground(background: Background): Promise<string>;
   setLayerVisible(group: LayerGroup, visible: boolean): void;
   computeEnvelope(grid: EnvelopeGrid): Promise<void>;

@@ -12,7 +12,7 @@ import { paperFor } from '../units/systems.js';
 
 const DESCRIPTIONS: Record<string, string> = {
   'sheet.pdf': 'Review sheet for the safety officer: map and record to sign (PDF)',
-  'map.svg': 'The review sheet\u2019s map alone, as the command line draws it (SVG)',
+  'map.svg': 'The review sheet\u2019s map alone, in the page\u2019s units and paper (SVG)',
   'landings.csv': 'Landing points, one row per sample (CSV)',
   'summary.json': 'Run summary (JSON)',
   'landings.geojson': 'Landing points (GeoJSON; a stated subset above 100,000 landings)',
@@ -48,7 +48,9 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
     const names = study.files.map((f) => f.name).filter((name) => name !== 'sheet.pdf').sort((a, b) => rank(a) - rank(b));
     const items: HTMLElement[] = names.map((name) => {
       const button = el('button', { text: name, attrs: { type: 'button' }, data: { export: name } });
-      button.addEventListener('click', () => actions.exportFile(name));
+      // The map is redrawn like the sheet, in the page's units and paper; the rest are the run's bytes.
+      if (name === 'map.svg') button.addEventListener('click', () => void actions.exportMapSvg(chosenPaper()).catch((error: unknown) => (sheetStatus.textContent = ` map.svg failed: ${error instanceof Error ? error.message : String(error)}`)));
+      else button.addEventListener('click', () => actions.exportFile(name));
       return el('li', {}, button, el('span', { class: 'muted', text: ` ${DESCRIPTIONS[name] ?? ''}` }));
     });
     if (study.filesError !== null) items.unshift(el('li', { class: 'alert', attrs: { role: 'alert' }, text: `The result files could not be made: ${study.filesError}` }));
@@ -59,22 +61,26 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
     sheetRow.hidden = study.filesError !== null;
   };
 
-  // ONE review-sheet button: in the units chosen at the top of the page, on A4 for metric and US
-  // Letter for imperial unless a paper is chosen here. The command line's sheet.pdf is not listed
-  // beside it, so nobody prints a metric A4 sheet by mistake.
+  // ONE review-sheet button: in the units chosen at the top of the page, on the paper chosen here,
+  // else the scenario's run.paper, else A4 for metric and US Letter for imperial. The command
+  // line's sheet.pdf is not listed beside it, so nobody prints a metric A4 sheet by mistake.
+  const automatic = el('option', { attrs: { value: 'auto' } });
   const paper = el(
     'select',
     { attrs: { id: 'sheet-paper', 'aria-label': 'Paper size of the review sheet' } },
-    el('option', { text: 'Paper: follows the units', attrs: { value: 'auto' } }),
+    automatic,
     el('option', { text: 'A4', attrs: { value: 'a4' } }),
     el('option', { text: 'US Letter', attrs: { value: 'letter' } }),
   );
-  const chosenPaper = (): Paper => (paper.value === 'a4' || paper.value === 'letter' ? paper.value : paperFor(store.get().units));
+  const scenarioPaper = (): Paper | undefined => store.get().accepted.scenario.run.paper;
+  const chosenPaper = (): Paper => (paper.value === 'a4' || paper.value === 'letter' ? paper.value : scenarioPaper() ?? paperFor(store.get().units));
   const redraw = el('button', { class: 'primary', attrs: { type: 'button' }, data: { export: 'sheet' } });
   const sheetStatus = el('span', { class: 'muted', attrs: { role: 'status' } });
   const label = () => {
     const units = store.get().units;
-    redraw.textContent = `Review sheet (PDF): ${units}, ${chosenPaper() === 'a4' ? 'A4' : 'US Letter'}`;
+    redraw.textContent = `Review sheet (PDF): ${units}, ${paperName(chosenPaper())}`;
+    const named = scenarioPaper();
+    automatic.textContent = named ? `Paper: the scenario\u2019s (${paperName(named)})` : 'Paper: follows the units';
   };
   paper.addEventListener('change', label);
   redraw.addEventListener('click', () => {
@@ -115,7 +121,7 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
 
   store.subscribe((state, previous) => {
     if (state.study !== previous.study) render(state);
-    if (state.units !== previous.units) label();
+    if (state.units !== previous.units || state.accepted !== previous.accepted) label();
     if (state.envelope.outcome !== previous.envelope.outcome) renderEnvelope(state);
   });
   render(store.get());
@@ -130,6 +136,10 @@ export function exportPanel(store: Store, actions: Actions): HTMLElement {
     envelopeList,
     envelopeStatus,
   );
+}
+
+function paperName(paper: Paper): string {
+  return paper === 'a4' ? 'A4' : 'US Letter';
 }
 
 function rank(name: string): number {

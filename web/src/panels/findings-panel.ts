@@ -9,6 +9,7 @@ import type { InputSensitivity } from '../../../src/sensitivity/study.js';
 import { svgFigure } from './svg-figure.js';
 import type { RiskSummary } from '../../../src/risk/index.js';
 import { smallRate } from '../../../src/report/sheet/units.js';
+import { readable, significant } from '../../../src/report/format-number.js';
 
 /**
  * The "Findings" tab: what the last run found, in the chosen units. Every figure comes from the
@@ -41,6 +42,22 @@ function table(caption: string, name: string, head: string[], rows: (string | No
     el('caption', { text: caption }),
     el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { text: h, attrs: { scope: 'col' } })))),
     el('tbody', {}, ...rows.map((r) => el('tr', {}, ...r.map((c, i) => (i === 0 ? el('th', { attrs: { scope: 'row' } }, c) : el('td', {}, c)))))),
+  );
+}
+
+const OCTANTS = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
+
+/**
+ * A distance for each of the eight directions in two rows of four, numbers only (the unit is in
+ * the caption): fits a phone's width in feet as in metres, with no unit wrapped under its number.
+ */
+function octantTable(caption: string, name: string, metres: Record<(typeof OCTANTS)[number], number | null>, u: FigureUnits): HTMLElement {
+  const cell = (n: (typeof OCTANTS)[number]) => el('td', {}, el('span', { class: 'octant-name', text: n }), metres[n] === null ? '–' : grouped(metres[n]! / u.length.si));
+  return el(
+    'table',
+    { class: 'octants', data: { finding: name } },
+    el('caption', { text: caption }),
+    el('tbody', {}, el('tr', {}, ...OCTANTS.slice(0, 4).map(cell)), el('tr', {}, ...OCTANTS.slice(4).map(cell))),
   );
 }
 
@@ -78,19 +95,7 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
   out.push(figures);
 
   if (study.analysis) {
-    const octants = study.analysis.keepOut.properties.octants_m;
-    const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
-    // Two rows of four directions, numbers only (the unit is in the caption): fits a phone's width
-    // in feet as in metres, with no unit wrapped under its number.
-    const cell = (n: (typeof names)[number]) => el('td', {}, el('span', { class: 'octant-name', text: n }), octants[n] === null ? '–' : grouped(octants[n]! / u.length.si));
-    out.push(
-      el(
-        'table',
-        { class: 'octants', data: { finding: 'octants' } },
-        el('caption', { text: `Keep-out zone: farthest point by direction from the pad (${u.length.label})` }),
-        el('tbody', {}, el('tr', {}, ...names.slice(0, 4).map(cell)), el('tr', {}, ...names.slice(4).map(cell))),
-      ),
-    );
+    out.push(octantTable(`Keep-out zone: farthest point by direction from the pad (${u.length.label})`, 'octants', study.analysis.keepOut.properties.octants_m, u));
   }
   if (s.contours.length > 0) {
     out.push(table('Probability regions', 'contours', ['Holds', 'Area', 'Reaches', 'In band'], s.contours.map((c) => [level(c.level), area(c.area_m2), inUnit(c.maxDistance_m, u.length), grouped(c.samplesInBand)])));
@@ -138,19 +143,21 @@ function findings(study: Study, u: FigureUnits, system: UnitSystem, current: boo
 function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => string): HTMLElement[] {
   const out: HTMLElement[] = [];
   const st = r.settings;
-  const harm = st.casualtyEnergy_J !== null ? `a casualty when the impact energy reaches ${st.casualtyEnergy_J} J` : 'casualty chance by impact energy from your table';
+  const harm = st.casualtyEnergy_J !== null ? `casualty at ${significant(st.casualtyEnergy_J, 3)} J or more` : 'casualty chance by energy, your table';
   out.push(el('h3', { class: 'findings-subhead', text: 'Risk to people (per flight)' }));
   const figures = el('dl', { class: 'figures', data: { finding: 'risk' } });
   const crit = r.total.collectiveCriterion ? `; ${r.total.collectiveCriterion} (${smallRate(st.criteria.collective)}), bound ${r.total.collectiveCriterionUpper95}` : '';
   figures.appendChild(figure('risk-total', 'Expected casualties, all marked areas', smallRate(r.total.expectedCasualties), `(95 % upper bound ${smallRate(r.total.upper95)})${crit}`));
   figures.appendChild(figure('risk-model', 'Harm model', harm, `object radius ${inUnit(st.objectRadius_m, u.length, 3)} (${st.objectRadiusFrom}); person ${inUnit(st.personRadius_m, u.length, 2)} radius, ${inUnit(st.personHeight_m, u.length, 2)} tall`));
   out.push(figures);
-  const names = ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'] as const;
-  const standing = table(`Individual risk stays under ${smallRate(r.standingLevel)} beyond${r.standingResolved ? '' : ' (line not resolved by the samples)'}`, 'standing', ['', ...names], [['distance', ...names.map((n) => inUnit(r.standingDistance_m[n], u.length))]]);
-  standing.classList.add('octants');
-  out.push(standing);
+  out.push(octantTable(`Individual risk stays under ${smallRate(r.standingLevel)} beyond this distance from the pad (${u.length.label})${r.standingResolved ? '' : '; line not resolved by the samples'}`, 'standing', r.standingDistance_m, u));
   out.push(
-    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Known from the samples?'], r.lines.map((l) => [smallRate(l.level), area(l.area_m2), inUnit(l.maxDistance_m, u.length), l.resolved ? 'yes' : `no: about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed`])),
+    table('Individual-risk lines', 'risk-lines', ['Risk per flight', 'Area inside', 'Reaches', 'Resolved by the samples?'], r.lines.map((l) => [
+      smallRate(l.level),
+      area(l.area_m2),
+      inUnit(l.maxDistance_m, u.length),
+      l.resolved ? 'yes' : el('span', {}, 'no', el('span', { class: 'cell-note', text: `about ${l.samplesNeeded === null ? 'many more' : grouped(l.samplesNeeded)} samples needed` })),
+    ])),
   );
   if (r.areas.length > 0) {
     out.push(
@@ -163,10 +170,11 @@ function riskFindings(r: RiskSummary, u: FigureUnits, area: (m2: number) => stri
     );
   }
   out.push(
-    table('Impacts by mode', 'risk-modes', ['Mode', 'Speed, median (95 %)', 'Energy, median (95 %)', 'Expected casualties'], r.modes.map((m) => [
+    // Units in the heads, so each cell is two short numbers that stay on one line in a phone's width.
+    table('Impacts by mode: median (95 %)', 'risk-modes', ['Mode', `Speed (${u.speed.label})`, 'Energy (J)', 'Expected casualties'], r.modes.map((m) => [
       m.name,
-      `${inUnit(m.impactSpeed_m_s.p50, u.speed, 1)} (${inUnit(m.impactSpeed_m_s.p95, u.speed, 1)})`,
-      `${m.impactEnergy_J.p50.toPrecision(3)} J (${m.impactEnergy_J.p95.toPrecision(3)} J)`,
+      `${readable(m.impactSpeed_m_s.p50 / u.speed.si)} (${readable(m.impactSpeed_m_s.p95 / u.speed.si)})`,
+      `${significant(m.impactEnergy_J.p50, 3)} (${significant(m.impactEnergy_J.p95, 3)})`,
       smallRate(m.expectedCasualties),
     ])),
   );

@@ -14,6 +14,8 @@ export function unitSwitch(store: Store, actions: Actions): HTMLElement {
     input.checked = store.get().units === system;
     input.addEventListener('change', () => input.checked && actions.setUnits(system));
     group.append(input, el('label', { text: LABELS[system], attrs: { for: id } }));
+    // Opening a scenario that names its units (run.units) changes them too.
+    store.subscribe((state, previous) => state.units !== previous.units && (input.checked = state.units === system));
   }
   return group;
 }
