@@ -111,7 +111,9 @@ export function parseEventFile(json: unknown, options: EventParseOptions = {}): 
     let baseDir = options.baseDir;
     if (typeof raw.scenario === 'string') {
       source = raw.scenario;
-      const path = options.joinPath && options.baseDir !== undefined ? options.joinPath(options.baseDir, raw.scenario) : raw.scenario;
+      // An absolute path stands as written (joining it to the plan's folder would make a path that does not exist).
+      const absolute = /^(?:[/\\]|[A-Za-z]:[/\\])/.test(raw.scenario);
+      const path = options.joinPath && options.baseDir !== undefined && !absolute ? options.joinPath(options.baseDir, raw.scenario) : raw.scenario;
       if (options.readText === undefined) {
         issues.push({ path: `${at}.scenario`, message: `'${raw.scenario}': scenario files cannot be read here; give the scenario inline` });
         return;
