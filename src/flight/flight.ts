@@ -43,10 +43,16 @@ export interface FlightOptions {
   earth?: Earth;
 }
 
+/**
+ * 3 mm/s on velocity: a velocity error is either integrated into position (checked at 1 cm) or,
+ * under a canopy, damped out by drag within about a second; 1 mm/s cost 14 % more evaluations on
+ * the demo club rocket for no gain in landing accuracy against the odex reference (0.05 m either
+ * way over eight turbulent flights; the rigid body 0.05 → 0.10 m, within the 0.5 m checked).
+ */
 export const DEFAULT_FLIGHT_OPTIONS: FlightOptions = {
   rtol: 1e-6,
   atolPosition: 1e-2,
-  atolVelocity: 1e-3,
+  atolVelocity: 3e-3,
   maxTime: 3600,
   maxSteps: 200_000,
   minStep: 1e-9,
