@@ -128,12 +128,15 @@ export class Dopri5 {
   }
 
   /**
-   * A first step size from (t, y) after a restart, as Hairer's DOPRI5 code chooses it (ODE I,
-   * §II.4): a step of 1 % of |y|/|f| in the scaled norm, one Euler step to estimate the second
-   * derivative, then the step whose fifth-order term would be 1 % of the tolerance; never more than
-   * 100 times the first guess nor `hMax`. Costs one evaluation; the first stage is kept (FSAL).
+   * A first step size from (t, y) after a restart, after the way Hairer's DOPRI5 code chooses it
+   * (ODE I, §II.4): one Euler step of the trial size `h0` estimates the second derivative, then
+   * the step whose fifth-order term would be 1 % of the tolerance, never more than 100 h0 nor
+   * `hMax`. The code's first guess from |y|/|f| is left out: it would make the step depend on state
+   * components that do not move (a rigid body's misalignment direction, drawn per sample, when
+   * there is no misalignment), so equal flights would no longer be flown equally. Costs one
+   * evaluation; the first stage is kept (FSAL).
    */
-  initialStep(sys: OdeSystem, t: number, hMax: number): number {
+  initialStep(sys: OdeSystem, t: number, h0: number, hMax: number): number {
     const n = this.n, y = this.y, k1 = this.k1, k2 = this.k2, tmp = this.tmp, atol = this.atol, time = this.time;
     if (!this.fsalValid) {
       time[0] = t;
@@ -141,24 +144,19 @@ export class Dopri5 {
       this.evaluations++;
       this.fsalValid = true;
     }
-    let dnf = 0, dny = 0;
-    for (let i = 0; i < n; i++) {
-      const sk = atol[i] + this.rtol * Math.abs(y[i]);
-      dnf += (k1[i] / sk) ** 2;
-      dny += (y[i] / sk) ** 2;
-    }
-    let h = dnf <= 1e-10 || dny <= 1e-10 ? 1e-6 : Math.sqrt(dny / dnf) * 0.01;
-    if (h > hMax) h = hMax;
+    const h = h0 < hMax ? h0 : hMax;
     for (let i = 0; i < n; i++) tmp[i] = y[i] + h * k1[i];
     time[0] = t + h;
     sys.derivative(time, tmp, k2);
     this.evaluations++;
+    let d1 = 0;
     let d2 = 0;
     for (let i = 0; i < n; i++) {
       const sk = atol[i] + this.rtol * Math.abs(y[i]);
+      d1 += (k1[i] / sk) ** 2;
       d2 += ((k2[i] - k1[i]) / sk) ** 2;
     }
-    const der = Math.max(Math.sqrt(d2) / h, Math.sqrt(dnf));
+    const der = Math.max(Math.sqrt(d2) / h, Math.sqrt(d1));
     const h1 = der <= 1e-15 ? Math.max(1e-6, h * 1e-3) : Math.exp(0.2 * Math.log(0.01 / der));
     return Math.min(100 * h, h1, hMax);
   }

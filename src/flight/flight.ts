@@ -554,7 +554,7 @@ export class FlightModel implements OdeSystem {
           if (this.isDiscontinuity(t, burning, burnTime)) {
             if (this.clockEvent(t, out, steps)) return out;
             burning = burning && t < burnTime;
-            h = solver.initialStep(this, t, opts.maxTime - t);
+            h = solver.initialStep(this, t, Math.min(h, 0.05), opts.maxTime - t);
           } else if (h < hPlanned) {
             // A thrust-curve point only cut this step short: carry on with the step planned before.
             h = hPlanned;
@@ -608,7 +608,7 @@ export class FlightModel implements OdeSystem {
       solver.reset(ye);
       // Leaving the rail and a stage's drag make the derivative jump: choose a first step afresh.
       // The apogee is only a moment of the flight (smooth there): keep the step size.
-      if (event !== EV_APOGEE || recovery.activeDragArea !== dragBefore) h = solver.initialStep(this, t, opts.maxTime - t);
+      if (event !== EV_APOGEE || recovery.activeDragArea !== dragBefore) h = solver.initialStep(this, t, Math.min(h, 0.05), opts.maxTime - t);
     }
   }
 
