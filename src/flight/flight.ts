@@ -105,11 +105,13 @@ const EV_GROUND = 2;
 const EV_STAGE = 3; // + stage index
 
 /**
- * Equations of motion of a point mass with gravity, thrust, and drag on the air-relative velocity,
- * and the flight's state machine: rail, powered flight, coast, apogee, recovery stages, ground.
+ * Equations of motion of a point mass (or, for a rocket with a shape, a rigid body) with gravity,
+ * thrust, and drag on the air-relative velocity, and the flight's state machine: rail, powered
+ * flight, coast, apogee, recovery stages, ground.
  *
- * State y = [east, north, up, v_east, v_north, v_up], metres from the pad and m/s; t from ignition
- * or release. One instance per scenario per thread; `fly` reconfigures it for each sample.
+ * State y = [east, north, up, v_east, v_north, v_up], metres from the pad and m/s (a rigid body
+ * adds nine attitude components, see `derivative`); t from ignition or release. One instance per
+ * scenario per thread; `fly` reconfigures it for each sample.
  */
 export class FlightModel implements OdeSystem {
   readonly air: Air;
