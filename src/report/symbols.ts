@@ -109,6 +109,21 @@ export const SYMBOLS = {
   standingUnresolved: { color: '#7d8f88', width: 1.1, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' } as LineSymbol,
   /** The pad: a ringed dot (white disc, dark ring, dark centre); radii in points. */
   pad: { ring: '#141414', ringWidth: 1.4, radius: 4.2, centre: 1.5 },
+  /**
+   * The rocket's side view (record page and Setup tab): body outline and fins, and the balance
+   * point (CG) and centre of pressure (CP) drawn as labelled stems of our own: CG a stem rising
+   * above the body ending in a short crossbar, CP a stem hanging below the body ending in an open
+   * square, so they read apart in grey and when printed small. Sizes in points.
+   */
+  sideView: {
+    body: { color: '#262626', width: 0.9 } as LineSymbol,
+    bodyFill: { color: '#e8e4dc', opacity: 1 } as FillSymbol,
+    fins: { color: '#262626', width: 0.8 } as LineSymbol,
+    finFill: { color: '#c9c2b4', opacity: 1 } as FillSymbol,
+    cg: { color: '#1d3f8a', width: 1.3, stem: 9, bar: 5 },
+    cp: { color: '#8a1c12', width: 1.3, stem: 9, box: 3.2 },
+    cgBurnout: { color: '#1d3f8a', width: 0.8, dash: [1.5, 1.5], stem: 6, bar: 4 },
+  },
 } as const;
 
 export type SymbolSet = typeof SYMBOLS;
@@ -176,5 +191,9 @@ export const WORDS = {
   /** The standing ring: 'Individual risk under 1.0e-6 per flight beyond this line (by octant)'. */
   standing: (level: string, resolved: boolean) => `Individual risk under ${level} per flight beyond this line (by octant)${resolved ? '' : '; not resolved by the samples'}`,
   riskLine: (level: string, resolved: boolean) => `Individual risk ${level} per flight or more${resolved ? '' : ' (faint: not resolved)'}`,
+  sideViewCg: 'CG',
+  sideViewCp: 'CP',
+  sideViewCgBurnout: 'CG at burnout',
+  sideViewCaption: (marginCal: string) => `Side view to scale; static margin ${marginCal} cal at lift-off (CP aft of CG is stable)`,
   areaChanceNote: 'Area labels: chance per flight that a landing falls inside, and its one-sided 95 % upper bound.',
 } as const;

@@ -287,9 +287,16 @@ export const seed = leaf((value): LeafResult<string> => {
   return fail(`${describeValue(value)} is not a seed; expected a number or non-empty text`);
 }).optional();
 
-/** Probability levels for contours: fractions strictly between 0 and 1, strictly increasing. */
-export const levels = leaf((value): LeafResult<number[]> => {
-  if (!Array.isArray(value) || value.length === 0) return fail(`${describeValue(value)}; expected a list of probabilities like [0.5, 0.9, 0.99]`);
+/**
+ * A non-empty list of fractions strictly between 0 and 1; `problemWith(value, shown, earlier)`
+ * adds the list's own rule (increasing, each once). Every item's problem is reported.
+ */
+export function readFractionList(
+  value: unknown,
+  example: string,
+  problemWith: (value: number, shown: string, earlier: readonly number[]) => string | undefined,
+): LeafResult<number[]> {
+  if (!Array.isArray(value) || value.length === 0) return fail(`${describeValue(value)}; expected a list of ${example}`);
   const problems: LeafProblem[] = [];
   const out: number[] = [];
   value.forEach((item: unknown, i) => {
@@ -298,14 +305,20 @@ export const levels = leaf((value): LeafResult<number[]> => {
       problems.push(...r.problems.map((p) => ({ ...p, path: [i] })));
       return;
     }
-    const previous = out[out.length - 1];
-    if (previous !== undefined && !(r.value.value > previous)) {
-      problems.push({ path: [i], message: `${r.value.shown} is not above the previous level ${previous}; levels must increase` });
-    }
+    const problem = problemWith(r.value.value, r.value.shown, out);
+    if (problem !== undefined) problems.push({ path: [i], message: problem });
     out.push(r.value.value);
   });
   return problems.length > 0 ? { ok: false, problems } : ok(out);
-}).optional();
+}
+
+/** Probability levels for contours: fractions strictly between 0 and 1, strictly increasing. */
+export const levels = leaf((value): LeafResult<number[]> =>
+  readFractionList(value, 'probabilities like [0.5, 0.9, 0.99]', (v, shown, earlier) => {
+    const previous = earlier[earlier.length - 1];
+    return previous !== undefined && !(v > previous) ? `${shown} is not above the previous level ${previous}; levels must increase` : undefined;
+  }),
+).optional();
 
 // ---------------------------------------------------------------------------------------------
 // Uncertainty spreads.

@@ -1,5 +1,5 @@
 import { describeValue } from './errors.js';
-import { fail, leaf, ok, readQuantity, type LeafProblem, type LeafResult } from './fields.js';
+import { fail, leaf, ok, readFractionList, readQuantity, type LeafProblem, type LeafResult } from './fields.js';
 
 /**
  * Readers for the fields of the `risk` block and the risk fields of a site area (see
@@ -7,23 +7,11 @@ import { fail, leaf, ok, readQuantity, type LeafProblem, type LeafResult } from 
  */
 
 /** Individual-risk levels per flight: fractions strictly between 0 and 1, each given once. */
-export const riskLevels = leaf((value): LeafResult<number[]> => {
-  if (!Array.isArray(value) || value.length === 0) {
-    return fail(`${describeValue(value)}; expected a list of chances per flight like [1e-4, 1e-5, 1e-6]`);
-  }
-  const problems: LeafProblem[] = [];
-  const out: number[] = [];
-  value.forEach((item: unknown, i) => {
-    const r = readQuantity(item, 'fraction', { above: 0, below: 1 });
-    if (!r.ok) {
-      problems.push(...r.problems.map((p) => ({ ...p, path: [i] })));
-      return;
-    }
-    if (out.includes(r.value.value)) problems.push({ path: [i], message: `${r.value.shown} is given twice; each level once` });
-    out.push(r.value.value);
-  });
-  return problems.length > 0 ? { ok: false, problems } : ok(out);
-}).optional();
+export const riskLevels = leaf((value): LeafResult<number[]> =>
+  readFractionList(value, 'chances per flight like [1e-4, 1e-5, 1e-6]', (v, shown, earlier) =>
+    earlier.includes(v) ? `${shown} is given twice; each level once` : undefined,
+  ),
+).optional();
 
 /**
  * Casualty probability by impact energy: rows [energy, probability], energies strictly increasing,

@@ -45,6 +45,10 @@ export class Controller implements Actions {
     this.applyDraft(withValue(this.store.get().draft, path, value));
   }
 
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void {
+    this.applyDraft(change(this.store.get().draft));
+  }
+
   /** A pad dragged on the map; 7 decimals of a degree is about a centimetre. */
   movePad(lon: number, lat: number): void {
     const round = (x: number) => Number(x.toFixed(7));

@@ -1,4 +1,4 @@
-import type { FieldPath } from '../scenario/document.js';
+import type { FieldPath, ScenarioDocument } from '../scenario/document.js';
 import type { LayerGroup } from '../map/style.js';
 import type { UnitSystem } from '../units/systems.js';
 import type { Background } from '../map/tiles.js';
@@ -8,6 +8,8 @@ import type { EnvelopeFileName } from '../study/envelope-files.js';
 /** What the panels can ask the page to do; app/controller.ts carries these out. */
 export interface Actions {
   editField(path: FieldPath, value: unknown): void;
+  /** A change of the draft's structure (a stage added, a list reordered), validated like a field. */
+  editDraft(change: (draft: ScenarioDocument) => ScenarioDocument): void;
   openFiles(files: readonly File[]): Promise<void>;
   openDemo(id: string): void;
   dismissRefused(): void;

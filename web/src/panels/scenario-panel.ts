@@ -1,14 +1,14 @@
 import type { AppState, Store } from '../app/store.js';
 import { baseName, valueAt } from '../scenario/document.js';
-import { dayFieldGroups, type DayField } from '../scenario/day-fields.js';
+import { dayFieldGroups } from '../scenario/day-fields.js';
 import { DEMOS } from '../scenario/demos.js';
-import { shownValue, writtenValue } from '../scenario/field-values.js';
-import type { Unit } from '../units/systems.js';
 import { spreadsAsFlown } from '../../../src/report/spread-text.js';
 import { unitFormatter } from '../../../src/report/format-number.js';
 import { inputWords } from '../../../src/report/sheet/input-names.js';
 import type { Actions } from './actions.js';
-import { el, replaceChildren, uniqueId } from './dom.js';
+import { el, replaceChildren } from './dom.js';
+import { fieldRow, type FieldRow } from './field-row.js';
+import { vehicleEditor } from './vehicle-editor.js';
 import { issueConcerns, issueList } from './issues.js';
 
 /**
@@ -40,6 +40,9 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
   const otherIssuesBox = el('div', { class: 'alert', attrs: { role: 'alert' }, data: { test: 'draft-issues' } });
   const warningsBox = el('div', { class: 'warnings', data: { test: 'scenario-warnings' } });
   const groupsBox = el('div', { class: 'field-groups' });
+  // What flies sits between the day's air and the spreads: where, weather, vehicle, spreads, run.
+  const vehicle = vehicleEditor(() => store.get(), actions);
+  const laterGroupsBox = el('div', { class: 'field-groups' });
   // Spread numbers are offsets added to the nominal: say what is flown, as the sheet and check do.
   const flownBox = el('div', { class: 'spreads-flown', data: { test: 'spreads-flown' } });
 
@@ -49,18 +52,18 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
   const rebuildFields = (state: AppState) => {
     const groups = dayFieldGroups(state.draft.json);
     rows.clear();
-    replaceChildren(
-      groupsBox,
-      ...groups.map((group) => {
+    const fieldsets = groups.map((group) => {
         const fieldset = el('fieldset', { class: `field-group group-${group.id}` }, el('legend', { text: group.title }), group.note ? el('p', { class: 'note', text: group.note }) : null);
         for (const f of group.fields) {
-          const row = fieldRow(f, state, actions);
+          const row = fieldRow(f, state, (value) => actions.editField(f.path, value));
           rows.set(f.issuePath, row);
           fieldset.appendChild(row.element);
         }
         return fieldset;
-      }),
-    );
+      });
+    const first = (id: string) => id === 'pad' || id === 'wind';
+    replaceChildren(groupsBox, ...fieldsets.filter((_f, i) => first(groups[i]!.id)));
+    replaceChildren(laterGroupsBox, ...fieldsets.filter((_f, i) => !first(groups[i]!.id)));
     builtFor = signature(state);
   };
 
@@ -69,8 +72,10 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
     fileName.textContent = `File: ${state.accepted.document.fileName}`;
     if (signature(state) !== builtFor) rebuildFields(state);
     else for (const row of rows.values()) row.update(state);
+    vehicle.render(state);
 
-    const unplaced = state.draftIssues.filter((issue) => ![...rows.keys()].some((path) => issueConcerns(issue, path)));
+    const placed = [...rows.keys(), ...vehicle.paths()];
+    const unplaced = state.draftIssues.filter((issue) => !placed.some((path) => issueConcerns(issue, path)));
     if (unplaced.length > 0) {
       replaceChildren(otherIssuesBox, el('p', { class: 'alert-title', text: 'Your edits have problems the fields below do not show; the map keeps the last valid scenario:' }), issueList(unplaced));
       otherIssuesBox.hidden = false;
@@ -138,6 +143,8 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
     otherIssuesBox,
     warningsBox,
     groupsBox,
+    vehicle.element,
+    laterGroupsBox,
     flownBox,
   );
 }
@@ -146,55 +153,4 @@ export function scenarioPanel(store: Store, actions: Actions): HTMLElement {
 function signature(state: AppState): string {
   const paths = dayFieldGroups(state.draft.json).flatMap((g) => g.fields.map((f) => `${f.issuePath}=${f.label}`));
   return `${state.documentVersion}|${state.units}|${paths.join(',')}`;
-}
-
-interface FieldRow {
-  element: HTMLElement;
-  update(state: AppState): void;
-}
-
-function fieldRow(field: DayField, state: AppState, actions: Actions): FieldRow {
-  const id = uniqueId('field');
-  const messageId = `${id}-message`;
-  const input = el('input', {
-    attrs: { id, type: 'text', autocomplete: 'off', spellcheck: 'false', 'aria-describedby': messageId, inputmode: field.kind === 'text' ? 'text' : 'decimal' },
-    data: { path: field.issuePath },
-  });
-  const unitLabel = el('span', { class: 'unit', attrs: { 'aria-hidden': 'true' } });
-  const message = el('p', { class: 'field-message', attrs: { id: messageId }, data: { messageFor: field.issuePath } });
-  let unit: Unit | null = null;
-  /** What the box held when last written into the draft (or shown from it). */
-  let written = '';
-
-  const showValue = (s: AppState) => {
-    const shown = shownValue(field, valueAt(s.draft.json, field.path), s.units);
-    unit = shown.unit;
-    input.value = shown.text;
-    written = shown.text;
-    unitLabel.textContent = shown.unit?.label ?? '';
-    input.setAttribute('aria-label', shown.unit ? `${field.label} (${shown.unit.label})` : field.label);
-  };
-  showValue(state);
-
-  // Validated on every input event, not only when the box loses focus: after Ctrl+Z (or any edit)
-  // the message and the Run button follow the value in the box at once.
-  const edit = () => {
-    if (input.value === written) return;
-    written = input.value;
-    actions.editField(field.path, writtenValue(field, input.value, unit));
-  };
-  input.addEventListener('input', edit);
-  input.addEventListener('change', edit);
-
-  const update = (s: AppState) => {
-    const issues = s.draftIssues.filter((issue) => issueConcerns(issue, field.issuePath));
-    message.textContent = issues.map((issue) => (issue.path === field.issuePath ? issue.message : `${issue.path}: ${issue.message}`)).join(' · ');
-    input.setAttribute('aria-invalid', issues.length > 0 ? 'true' : 'false');
-    // Never overwrite what the user is typing, nor a value the validator refused (it explains it).
-    if (document.activeElement !== input && issues.length === 0) showValue(s);
-  };
-  update(state);
-
-  const label = el('label', { text: field.label, attrs: { for: id } });
-  return { element: el('div', { class: 'field' }, label, el('div', { class: 'input-with-unit' }, input, unitLabel), message), update };
 }

@@ -1,5 +1,6 @@
 import { formatPath } from '../../../src/scenario/errors.js';
 import type { Dimension } from '../../../src/scenario/units.js';
+import type { UnitSystem } from '../units/systems.js';
 import { valueAt, type FieldPath } from './document.js';
 
 /**
@@ -8,7 +9,7 @@ import { valueAt, type FieldPath } from './document.js';
  * the file.
  */
 
-export type FieldKind = 'quantity' | 'integer' | 'text';
+export type FieldKind = 'quantity' | 'integer' | 'text' | 'choice';
 
 export interface DayField {
   path: FieldPath;
@@ -23,6 +24,12 @@ export interface DayField {
   optional?: boolean;
   /** Significant digits shown (latitude and longitude need more). */
   digits?: number;
+  /** The unit shown per system, where the dimension's usual one reads badly (a fin in mm, not m). */
+  units?: Record<UnitSystem, string>;
+  /** Shown in an empty optional box: what the format takes when it is left out. */
+  placeholder?: string;
+  /** For kind 'choice': the values the format allows, as written into the file, and their names. */
+  choices?: readonly { value: string | number; label: string }[];
 }
 
 export interface FieldGroup {

@@ -1,6 +1,6 @@
 import { convertQuantity } from '../../../src/scenario/units.js';
 import { fieldNumber } from '../units/format.js';
-import { fieldUnit, type Unit, type UnitSystem } from '../units/systems.js';
+import { fieldUnit, unitOf, type Unit, type UnitSystem } from '../units/systems.js';
 import type { DayField } from './day-fields.js';
 
 /**
@@ -19,7 +19,7 @@ const PERCENT: Unit = { text: '%', label: '%', si: 0.01 };
 
 export function shownValue(field: DayField, raw: unknown, system: UnitSystem): ShownValue {
   if (field.kind !== 'quantity' || field.dimension === undefined) return { text: raw === undefined ? '' : String(raw), unit: null };
-  const unit = field.dimension === 'fraction' ? PERCENT : fieldUnit(field.dimension, system);
+  const unit = field.dimension === 'fraction' ? PERCENT : field.units ? unitOf(field.units[system], field.dimension) : fieldUnit(field.dimension, system);
   if (raw === undefined) return { text: '', unit: unit.label === '' ? null : unit };
   const q = convertQuantity(raw, field.dimension, { allowRelative: field.allowRelative });
   // A value the validator cannot read is shown as it stands, so its message makes sense beside it.
@@ -36,6 +36,7 @@ export function writtenValue(field: DayField, typed: string, shownUnit: Unit | n
   if (text === '') return field.optional ? undefined : '';
   if (field.kind === 'integer') return PLAIN_NUMBER.test(text) ? Number(text) : text;
   if (field.kind === 'text') return typed;
+  if (field.kind === 'choice') return field.choices?.find((c) => String(c.value) === text)?.value ?? text;
   if (!PLAIN_NUMBER.test(text)) return text;
   // A plain number in the file is SI (degrees for angles, a fraction for probabilities); write it
   // as a number only when the unit shown is that one, otherwise with the unit shown.

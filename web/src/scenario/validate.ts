@@ -3,6 +3,7 @@ import { ScenarioError } from '../../../src/scenario/errors.js';
 import { hashScenario } from '../../../src/scenario/hash.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
 import { nominalFlight, type NominalFlight } from '../study/nominal.js';
+import { nominalFigures, type NominalFigures } from '../../../src/report/stability.js';
 import { attachedFileReader, type ScenarioDocument } from './document.js';
 
 /**
@@ -19,6 +20,8 @@ export interface AcceptedScenario {
   warnings: Issue[];
   hash: string;
   nominal: NominalFlight;
+  /** Stability (rockets with a shape) and the apogee point, from that same nominal flight. */
+  figures: NominalFigures;
 }
 
 export type Validation = { ok: true; accepted: AcceptedScenario } | { ok: false; issues: Issue[] };
@@ -33,7 +36,7 @@ export function validateDocument(document: ScenarioDocument): Validation {
     const nominal = nominalFlight(scenario);
     return {
       ok: true,
-      accepted: { document, scenario, warnings: [...warnings, ...nominal.warnings], hash: hashScenario(scenario), nominal },
+      accepted: { document, scenario, warnings: [...warnings, ...nominal.warnings], hash: hashScenario(scenario), nominal, figures: nominalFigures(scenario, nominal.result) },
     };
   } catch (error) {
     if (error instanceof ScenarioError) return { ok: false, issues: error.issues };

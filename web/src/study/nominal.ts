@@ -4,6 +4,7 @@ import { machWarnings, railExitSpeedWarnings } from '../../../src/scenario/warni
 import { apogeeWarnings } from '../../../src/scenario/plausibility.js';
 import { stabilityWarnings } from '../../../src/flight/stability-warnings.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
+import type { FlightResult } from '../../../src/flight/flight.js';
 
 /** The nominal flight, flown by the engine, as the map draws it. */
 export interface NominalFlight {
@@ -14,6 +15,8 @@ export interface NominalFlight {
   landed: boolean;
   /** Warnings that only a flight can give (rail-exit speed), as the command line adds them. */
   warnings: Issue[];
+  /** The engine's result of that flight (stability figures and the apogee point read it). */
+  result: FlightResult;
 }
 
 /**
@@ -31,6 +34,7 @@ export function nominalFlight(scenario: Scenario): NominalFlight {
     if (apogee === null || y[2]! > apogee.height) apogee = { lonLat: point, height: y[2]! };
   });
   return {
+    result,
     track,
     apogee,
     landed: result.status === 0,

@@ -31,9 +31,10 @@ const UNIT_TEXT: Partial<Record<Dimension, Record<UnitSystem, string>>> = {
   number: { metric: '', imperial: '' },
 };
 
-const LABELS: Record<string, string> = { deg: '°' };
+const LABELS: Record<string, string> = { deg: '°', m2: 'm²', ft2: 'ft²', 'kg m2': 'kg m²', 'lb in2': 'lb in²' };
 
-function unitOf(text: string, dimension: Dimension): Unit {
+/** A unit by its scenario-format spelling ("mm", "kg m2"), with its SI value from the parser's table. */
+export function unitOf(text: string, dimension: Dimension): Unit {
   if (text === '') return { text, label: '', si: 1 };
   const one = convertQuantity(`1 ${text}`, dimension);
   if (!one.ok) throw new Error(`unit table: '${text}' is not ${dimension}: ${one.message}`);
