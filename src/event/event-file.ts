@@ -17,6 +17,7 @@ import { describeValue, ScenarioError } from '../scenario/errors.js';
 import { hashScenario } from '../scenario/hash.js';
 import { parseJsonText } from '../scenario/json-text.js';
 import { parseScenario } from '../scenario/load.js';
+import { stabilityWarnings } from '../flight/stability-warnings.js';
 import type { Issue, Scenario, Site } from '../scenario/types.js';
 
 export const EVENT_FIELDS = ['strewnEvent', 'name', 'notes', 'site', 'items', 'run'] as const;
@@ -142,6 +143,8 @@ export function parseEventFile(json: unknown, options: EventParseOptions = {}): 
     let warnings: Issue[];
     try {
       ({ scenario, warnings } = parseScenario(merged, { baseDir, readText: options.readText, maxSamples: options.maxSamples }));
+      // The static margin is judged above the scenario layer (it needs the aerodynamics).
+      warnings = [...warnings, ...stabilityWarnings(scenario)];
     } catch (error) {
       if (!(error instanceof ScenarioError)) throw error;
       const siteIssues = error.issues.some((x) => x.path === 'site' || x.path.startsWith('site.') || x.path.startsWith('site['));
