@@ -19,7 +19,9 @@ import { scenarioHash } from '../scenario/hash.js';
 import type { Scenario } from '../scenario/types.js';
 import { reviewFacts, runDate } from '../report/sheet/review-facts.js';
 import { sheetInputFromTexts } from '../report/sheet/sheet-input.js';
-import { buildSheet } from '../report/sheet/index.js';
+import { SheetThread } from './sheet-thread.js';
+import { interruptSignal } from './interrupt.js';
+import { honourInterrupt } from './study-files-light.js';
 import { VERSION } from '../version.js';
 import { riskSettings, riskSummary, type RiskSettings } from '../risk/index.js';
 import { writeRiskGeoJSON } from '../risk/geojson.js';
@@ -158,9 +160,19 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     if (error instanceof LandingsInputError) throw new UsageError(`${path}: ${error.message}`);
     throw error;
   }
-  const out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), { force: values.force === true, inputs, say: values.quiet === true || values.json === true ? () => {} : undefined });
+  // Taken before the folder is prepared: Ctrl-C or SIGTERM from now on stops the command between
+  // its steps or while it writes, and removes what it made (exit 130, as for run).
+  const interrupt = interruptSignal();
+  const signal = interrupt.signal;
+  let out: OutputFolder | undefined;
+  // The sheet's thread loads the sheet code while this one analyses.
+  let sheetThread: SheetThread | undefined;
   try {
+    out = OutputFolder.prepare((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-analysis`), { force: values.force === true, inputs, say: values.quiet === true || values.json === true ? () => {} : undefined });
+    if (scenario) sheetThread = SheetThread.start();
+    await honourInterrupt(signal);
     const analysis = analyze(set, site, run, { risk });
+    await honourInterrupt(signal);
     const counts = set.modeNames.map((_, m) => set.mode.filter((x) => x === m).length);
     const noFlight = { mean: null, p05: null, p50: null, p95: null, max: null };
     // The fields a run's summary has, so that `strewn sheet` reads this folder too; nothing was
@@ -197,14 +209,15 @@ export async function analyzeCommand(args: string[]): Promise<number> {
       const reviewText = JSON.stringify(reviewFacts(analysis, runDate()), null, 2) + '\n';
       out.write('scenario.json', scenarioText);
       out.write('review.json', reviewText);
-      const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), { units, paper });
+      const sheet = await sheetThread!.draw({ input: sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), choices: { units, paper } }, signal);
       out.write('map.svg', sheet.svg);
       out.write('sheet.pdf', sheet.pdf);
     }
-    out.write('landings.geojson', landingsGeoJSONChunks(set, site.pad));
+    await out.writeAsync('landings.geojson', landingsGeoJSONChunks(set, site.pad), signal);
     if (site.areas.length > 0) out.write('areas.csv', writeAreasCsv(analysis.areas));
     out.write('result.kml', writeKml(analysis, site, `Landings from ${basename(path)}`));
     if (analysis.risk) out.write('risk.geojson', writeRiskGeoJSON(analysis.risk, site.pad));
+    await honourInterrupt(signal);
     out.commit();
     if (values.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (!values.quiet) {
@@ -217,6 +230,8 @@ export async function analyzeCommand(args: string[]): Promise<number> {
     }
     return 0;
   } finally {
-    out.discard();
+    sheetThread?.dispose();
+    out?.discard();
+    interrupt.dispose();
   }
 }

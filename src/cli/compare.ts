@@ -65,7 +65,7 @@ export async function compareCommand(args: string[]): Promise<number> {
     lines.push(`  area           ${a.name}: chance per flight ${pct(a.probability.a)} → ${pct(a.probability.b)}${cas}`);
   }
   lines.push(`  total          expected casualties ${f(c.total.expectedCasualties.a, 6)} → ${f(c.total.expectedCasualties.b, 6)}`);
-  if (!c.samePad) lines.push('  note           the two studies fly from different pads');
+  if (c.samePad === false) lines.push('  note           the two studies fly from different pads');
   if (values.out !== undefined) lines.push(`  results        ${values.out as string}`);
   lines.push('', `CAUTION: ${CAUTION}`, '');
   process.stdout.write(lines.join('\n'));

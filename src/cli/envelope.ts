@@ -10,12 +10,11 @@ import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 import { windEnvelope } from '../envelope/envelope.js';
 import type { Aim } from '../envelope/aim.js';
 import { writeEnvelopeCsv, writeEnvelopeJson, writeWindowCsv } from '../envelope/writers.js';
-import { envelopeChart, forecastVerdict, judgeWindow } from '../envelope/chart.js';
+import { envelopeChart, forecastVerdict } from '../envelope/chart.js';
 import { readFileSync } from 'node:fs';
 import { dirname } from 'node:path';
-import { hourlyWinds } from '../forecast/window.js';
+import { launchWindow } from '../envelope/launch-window.js';
 import { resolveRelativePath } from '../scenario/thrust.js';
-import { isoTime } from '../scenario/time.js';
 import type { Scenario } from '../scenario/types.js';
 import { envelopePdf } from '../envelope/envelope-pdf.js';
 import { CAUTION } from '../report/caution.js';
@@ -130,7 +129,7 @@ export async function envelopeCommand(args: string[]): Promise<number> {
     });
     bar.end();
     const forecast = scenario.weather.forecast;
-    if (forecast) result.window = launchWindow(result, path, scenario);
+    if (forecast) result.window = launchWindowOf(result, path, scenario);
     const computedAt = isoSeconds(runDate());
     const extra = { version: VERSION, scenarioHash: loaded.hash, computedAt, caution: CAUTION };
     out.write('envelope.json', writeEnvelopeJson(result, extra));
@@ -202,11 +201,8 @@ export function parseSpeedGrid(text: string): { speeds: number[]; note?: string 
 }
 
 /** The forecast's hours of the chosen day judged against the limits. */
-function launchWindow(result: Awaited<ReturnType<typeof windEnvelope>>, scenarioPath: string, scenario: Scenario): NonNullable<typeof result.window> {
-  const f = scenario.weather.forecast!;
-  const bytes = readFileSync(resolveRelativePath(dirname(scenarioPath), f.file));
-  const hours = hourlyWinds(bytes, scenario.site.pad, Date.parse(f.time), scenario.weather.wind.height, scenario.weather.wind.shear);
-  return judgeWindow(result, hours.map((h) => ({ time: isoTime(h.time), speed: h.speed, from: h.from })));
+function launchWindowOf(result: Awaited<ReturnType<typeof windEnvelope>>, scenarioPath: string, scenario: Scenario): NonNullable<typeof result.window> {
+  return launchWindow(result, readFileSync(resolveRelativePath(dirname(scenarioPath), scenario.weather.forecast!.file)), scenario);
 }
 
 function formatEnvelope(e: Awaited<ReturnType<typeof windEnvelope>>, folder: string, u: UnitFormatter): string {

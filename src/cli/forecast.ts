@@ -1,4 +1,5 @@
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
+import { writeSingleFile } from './output-folder.js';
 import { readGrib2 } from '../forecast/grib2.js';
 import { isForecastInputError, resolveForecast } from '../forecast/resolve.js';
 import { validTimes } from '../forecast/profile.js';
@@ -108,7 +109,7 @@ export async function forecastCommand(args: string[]): Promise<number> {
         temperature: r.air[0].temperature,
         pressure: r.air[0].pressure,
       };
-      writeFileSync(out, JSON.stringify(fragment, null, 2) + '\n');
+      writeSingleFile(out, JSON.stringify(fragment, null, 2) + '\n');
       process.stderr.write(`wrote ${out}: put its fields into the scenario's "weather" block\n`);
     }
     return 0;

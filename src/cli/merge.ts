@@ -61,24 +61,26 @@ export async function mergeCommand(args: string[]): Promise<number> {
   }
   const { folder: firstFolder, manifest: first } = ordered[0].value;
   const scenario = readShardScenario(firstFolder, first);
-  const out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: ordered.map(({ value }) => value.folder) });
+  // Taken before the folder is prepared, so a signal from now on is answered by cleaning up.
   const interrupt = interruptSignal();
+  let out: OutputFolder | undefined;
   try {
+    out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: ordered.map(({ value }) => value.folder) });
     // One shard's columns at a time are read and copied into the study's columns.
     const all = allocateChunk(0, first.samples, piecesPerSample(scenario));
     for (const { value } of ordered) {
-      interrupt.signal.throwIfAborted();
+      await honourInterrupt(interrupt.signal);
       placeColumns(all, readShardColumns(value.folder, value.manifest));
     }
     const run = { ...all, plan: planModes(scenario.failures, first.samples), seed: first.seed };
-    const summary = writeStudyFiles(out, scenario, first.scenarioHash, run, first.warnings);
+    const summary = await writeStudyFiles(out, scenario, first.scenarioHash, run, first.warnings, { signal: interrupt.signal });
     await honourInterrupt(interrupt.signal);
     out.commit();
     if (values.json === true) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
     else if (values.quiet !== true) process.stdout.write(formatRunSummary(summary, out.destination));
     return 0;
   } finally {
-    out.discard();
+    out?.discard();
     interrupt.dispose();
   }
 }

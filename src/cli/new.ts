@@ -1,10 +1,10 @@
-import { writeFileSync } from 'node:fs';
 import { parseScenario } from '../scenario/load.js';
 import { VEHICLE_KINDS } from '../scenario/schema.js';
 import { starterScenario, type StarterUnits } from '../scenario/starter.js';
 import type { VehicleKind } from '../scenario/types.js';
 import { parseCommandArgs, onePositional } from './args.js';
 import { UsageError } from './errors.js';
+import { writeSingleFile } from './output-folder.js';
 
 export const NEW_HELP = `Usage: strewn new <file.json> --kind rocket|projectile|release [--units metric|imperial] [--force]
 
@@ -40,7 +40,7 @@ export async function newCommand(args: string[]): Promise<number> {
   // The starter must validate; if it ever did not, that is a bug here, not the user's input.
   parseScenario(json);
   try {
-    writeFileSync(path, JSON.stringify(json, null, 2) + '\n', { flag: values.force === true ? 'w' : 'wx' });
+    writeSingleFile(path, JSON.stringify(json, null, 2) + '\n', values.force !== true);
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     if (code === 'EEXIST') throw new UsageError(`new: '${path}' already exists; choose another name or add --force to replace it`);

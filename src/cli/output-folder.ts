@@ -1,6 +1,7 @@
 import {
   closeSync,
   existsSync,
+  linkSync,
   lstatSync,
   mkdirSync,
   openSync,
@@ -35,6 +36,17 @@ import { UsageError } from './errors.js';
  * - system errors become one sentence naming the path (exit 2 for a bad path, 1 for a full disk).
  */
 
+/** Longest stretch of writing between two looks at the event loop (a signal waits at most this long). */
+const WRITE_SLICE_MS = 50;
+
+/**
+ * Two turns of the event loop (one is not enough for a signal that arrived during synchronous
+ * work to reach its handler).
+ */
+export async function eventLoopTurns(): Promise<void> {
+  for (let turn = 0; turn < 2; turn++) await new Promise((resolve) => setImmediate(resolve));
+}
+
 /** Written into every folder Strewn makes; its presence is what lets `--force` replace a folder. */
 export const MARKER_FILE = '.strewn-results';
 const MARKER_TEXT = 'This folder was written by strewn; strewn run/analyze/envelope --force may replace it.\n';
@@ -66,7 +78,7 @@ export function fileSystemError(error: unknown, path: string, doing: string): Er
   switch (code) {
     case 'ENOSPC':
     case 'EDQUOT':
-      return new DiskFullError(`the disk is full while ${doing} '${path}'; free some space (or choose another --out) and run again`);
+      return new DiskFullError(`the disk is full while ${doing} '${path}'; free some space (or write elsewhere) and run again`);
     case 'EACCES':
     case 'EPERM':
       return new UsageError(`no permission for ${doing} '${path}'; choose a folder you may write to with --out`);
@@ -298,16 +310,21 @@ export class OutputFolder {
             `--out: another strewn process${owner === undefined ? '' : ` (${owner})`} is writing '${destination}' right now (lock file ${lock}); wait for it or choose another folder`,
           );
         }
+        // Created but not written (a full disk): it is ours, and goes.
+        rmSync(lock, { force: true });
         throw fileSystemError(error, parent, 'writing into');
       }
-      let staging: string;
+      let staging: string | undefined;
       try {
         staging = attempt(parent, 'writing into', () => freshFolder(parent, `.${basename(dest)}.partial-`));
-        attempt(staging, 'writing into', () => {
-          writeFileSync(join(staging, OWNER_FILE), `${process.pid}\n`);
-          writeFileSync(join(staging, MARKER_FILE), MARKER_TEXT);
+        const made = staging;
+        attempt(made, 'writing into', () => {
+          writeFileSync(join(made, OWNER_FILE), `${process.pid}\n`);
+          writeFileSync(join(made, MARKER_FILE), MARKER_TEXT);
         });
       } catch (error) {
+        // A full disk can refuse the staging folder's first files: the folder goes too.
+        if (staging !== undefined) rmSync(staging, { recursive: true, force: true });
         rmSync(lock, { force: true });
         throw error;
       }
@@ -338,6 +355,42 @@ export class OutputFolder {
         closeSync(fd);
       }
     });
+  }
+
+  /**
+   * Like `write`, but content given in pieces is written in slices of about 50 ms with a turn of
+   * the event loop between them, so Ctrl-C or SIGTERM is answered at once even while a file of
+   * millions of lines is written; stops with the signal's reason when it aborts.
+   */
+  async writeAsync(name: string, content: string | Uint8Array | Iterable<string | Uint8Array>, signal?: AbortSignal): Promise<void> {
+    if (signal) {
+      await eventLoopTurns();
+      signal.throwIfAborted();
+    }
+    if (typeof content === 'string' || content instanceof Uint8Array) {
+      this.write(name, content);
+      return;
+    }
+    const file = join(this.staging, name);
+    if (name.includes('/')) mkdirSync(dirname(file), { recursive: true });
+    const shown = join(this.destination, name);
+    const fd = attempt(shown, 'writing', () => openSync(file, 'w'));
+    try {
+      let slice = performance.now();
+      for (const piece of content) {
+        const bytes = typeof piece === 'string' ? Buffer.from(piece) : piece;
+        attempt(shown, 'writing', () => {
+          for (let at = 0; at < bytes.length; ) at += writeSync(fd, bytes, at, bytes.length - at);
+        });
+        if (performance.now() - slice > WRITE_SLICE_MS) {
+          await eventLoopTurns();
+          signal?.throwIfAborted();
+          slice = performance.now();
+        }
+      }
+    } finally {
+      closeSync(fd);
+    }
   }
 
   /**
@@ -387,5 +440,50 @@ export class OutputFolder {
     if (this.released) return;
     this.released = true;
     rmSync(this.lock, { force: true });
+  }
+}
+
+/**
+ * Writes one file the user named (not a results folder) without ever leaving it half-written: a
+ * regular file (or none yet) is written beside under a temporary name and renamed over the old
+ * one, so a full disk leaves the old file as it was; a device or pipe (/dev/stdout, /dev/full) is
+ * written directly. A full disk becomes one sentence naming the path (DiskFullError: exit 1);
+ * other system errors are passed on for the command to word (EEXIST, ENOENT, EISDIR…).
+ * `exclusive`: refuse (EEXIST) a file that exists.
+ */
+export function writeSingleFile(path: string, content: string | Uint8Array, exclusive = false): void {
+  let stats: Stats | undefined;
+  try {
+    stats = statSync(path);
+  } catch {
+    stats = undefined;
+  }
+  if (stats && exclusive) throw Object.assign(new Error(`${path} exists`), { code: 'EEXIST' });
+  if (stats && !stats.isFile()) {
+    if (stats.isDirectory()) throw Object.assign(new Error(`${path} is a folder`), { code: 'EISDIR' });
+    diskFull(path, () => writeFileSync(path, content));
+    return;
+  }
+  const temp = join(dirname(path), `.${basename(path)}.partial-${process.pid}-${randomBytes(3).toString('hex')}`);
+  try {
+    diskFull(path, () => writeFileSync(temp, content, { flag: 'wx', mode: stats ? stats.mode & 0o7777 : 0o666 }));
+    diskFull(path, () => {
+      if (exclusive) {
+        // Only the rename decides: linking refuses a name that appeared meanwhile.
+        linkSync(temp, path);
+      } else renameSync(temp, path);
+    });
+  } finally {
+    rmSync(temp, { force: true });
+  }
+}
+
+function diskFull<T>(path: string, work: () => T): T {
+  try {
+    return work();
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException)?.code;
+    if (code === 'ENOSPC' || code === 'EDQUOT') throw fileSystemError(error, path, 'writing');
+    throw error;
   }
 }

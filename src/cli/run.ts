@@ -14,6 +14,7 @@ import { interruptSignal, STUDY_OPTIONS } from './interrupt.js';
 import { parseShardOption, shardFolderName } from './shard-option.js';
 import { writeShardFolder } from './shard-folder.js';
 import { honourInterrupt } from './study-files-light.js';
+import { SheetThread } from './sheet-thread.js';
 import { PhaseTimer } from './phase-timer.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 
@@ -108,12 +109,20 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   const outDir = shard
     ? join((values.out as string | undefined) ?? join('results', `${basename(path, extname(path))}-shards`), shardFolderName(shard))
     : ((values.out as string | undefined) ?? join('results', basename(path, extname(path))));
-  const out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
+  // Taken before the folder is prepared, so a signal from now on is answered by cleaning up.
+  const interrupt = interruptSignal();
+  let out: OutputFolder;
+  try {
+    out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: loaded.inputFiles, say: quiet ? () => {} : undefined });
+  } catch (error) {
+    interrupt.dispose();
+    throw error;
+  }
   if (!quiet && !json) printWarnings(loaded.warnings);
 
-  const interrupt = interruptSignal();
   const bar = progressBar(process.stderr, !quiet);
   timer.lap('scenario and nominal flight');
+  let sheetThread: SheetThread | undefined;
   try {
     const range = shard ? shardRange(samples, shard) : undefined;
     // The analysis, report and sheet code loads while the workers fly.
@@ -145,13 +154,15 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
             : `stopped at the cap of ${stableCap.toLocaleString('en')} samples per round before the line settled (--stable-cap raises it)\n`,
         );
       }
-      const summary = writeOutcomeFiles(out, scenario, outcome, timer);
+      const summary = await writeOutcomeFiles(out, scenario, outcome, { timer, display: { units, paper }, signal: interrupt.signal });
       await honourInterrupt(interrupt.signal);
       out.commit();
       if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
       else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
       return 0;
     }
+    // The sheet's thread loads the sheet code while the samples fly.
+    sheetThread = shard ? undefined : SheetThread.start();
     const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p) });
     bar.end();
     timer.lap('flights (workers; main thread waits)');
@@ -169,7 +180,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
       return 0;
     }
     const { writeStudyFiles } = await files!;
-    const summary = writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, timer, { units, paper });
+    const summary = await writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, { timer, display: { units, paper }, signal: interrupt.signal, sheet: sheetThread });
     await honourInterrupt(interrupt.signal);
     out.commit();
     timer.lap('commit');
@@ -177,6 +188,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
     else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination, units));
     return 0;
   } finally {
+    sheetThread?.dispose();
     bar.end();
     out.discard();
     interrupt.dispose();

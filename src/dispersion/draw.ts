@@ -1,7 +1,7 @@
 import type { Scenario, Spread, UncertaintyName } from '../scenario/types.js';
 import { UNCERTAINTY_NAMES } from '../scenario/types.js';
 import type { FlightInputs } from '../flight/inputs.js';
-import { sigmaWFromGust, sigmaWFromW20 } from '../physics/dryden.js';
+import { drydenAt, sigmaWFromGustRatio, sigmaWFromW20 } from '../physics/dryden.js';
 import { referenceSpeed, type MeanWind } from '../physics/wind.js';
 import { RHO_SEA_LEVEL, G0 } from '../physics/constants.js';
 import { spreadOffset } from './spreads.js';
@@ -24,9 +24,12 @@ export class InputDrawer {
   private readonly modeStops: Int16Array[];
   /** Release along a path or over an area: its uniforms are drawn after every other draw. */
   private readonly route: ReleaseRoute | null;
+  /** Dryden σ_u/σ_w at the wind's reference height, for the gust-based turbulence strength. */
+  private readonly gustRatio: number;
 
   constructor(scenario: Scenario, plan: ModePlan) {
     this.scenario = scenario;
+    this.gustRatio = drydenAt(scenario.weather.wind.height).sigmaRatioU;
     this.spreads = UNCERTAINTY_NAMES.map((n) => scenario.uncertainty[n]);
     this.nominal = Float64Array.from(UNCERTAINTY_NAMES.map((n) => nominalValue(scenario, n)));
     this.route = scenario.launch.kind === 'release' ? ReleaseRoute.of(scenario.launch, scenario.site) : null;
@@ -97,7 +100,7 @@ export class InputDrawer {
       const gust = sc.weather.wind.gust !== undefined || sc.uncertainty['wind.gust'] !== undefined ? v[2] : NaN;
       inputs.sigmaW =
         gust === gust
-          ? sigmaWFromGust(gust, inputs.windSpeed, sc.weather.wind.height)
+          ? sigmaWFromGustRatio(gust, inputs.windSpeed, this.gustRatio)
           : sigmaWFromW20(wind.speedAt(W20_HEIGHT));
     }
 

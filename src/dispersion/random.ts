@@ -33,7 +33,13 @@ export class SampleStream {
       this.digits[count++] = 48 + (rest % 10);
       rest = Math.floor(rest / 10);
     } while (rest > 0);
-    this.digits.subarray(0, count).reverse();
+    // Reversed in place (a subarray view would be a new object per sample).
+    const d = this.digits;
+    for (let i = 0, j = count - 1; i < j; i++, j--) {
+      const c = d[i];
+      d[i] = d[j];
+      d[j] = c;
+    }
     this.digitCount = count;
 
     this.n = 0xefc8249d;

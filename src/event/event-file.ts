@@ -17,6 +17,7 @@ import { describeValue, ScenarioError } from '../scenario/errors.js';
 import { hashScenario } from '../scenario/hash.js';
 import { parseJsonText } from '../scenario/json-text.js';
 import { parseScenario } from '../scenario/load.js';
+import { stabilityWarnings } from '../flight/stability-warnings.js';
 import type { Issue, Scenario, Site } from '../scenario/types.js';
 
 export const EVENT_FIELDS = ['strewnEvent', 'name', 'notes', 'site', 'items', 'run'] as const;
@@ -111,7 +112,9 @@ export function parseEventFile(json: unknown, options: EventParseOptions = {}): 
     let baseDir = options.baseDir;
     if (typeof raw.scenario === 'string') {
       source = raw.scenario;
-      const path = options.joinPath && options.baseDir !== undefined ? options.joinPath(options.baseDir, raw.scenario) : raw.scenario;
+      // An absolute path stands as written (joining it to the plan's folder would make a path that does not exist).
+      const absolute = /^(?:[/\\]|[A-Za-z]:[/\\])/.test(raw.scenario);
+      const path = options.joinPath && options.baseDir !== undefined && !absolute ? options.joinPath(options.baseDir, raw.scenario) : raw.scenario;
       if (options.readText === undefined) {
         issues.push({ path: `${at}.scenario`, message: `'${raw.scenario}': scenario files cannot be read here; give the scenario inline` });
         return;
@@ -140,6 +143,8 @@ export function parseEventFile(json: unknown, options: EventParseOptions = {}): 
     let warnings: Issue[];
     try {
       ({ scenario, warnings } = parseScenario(merged, { baseDir, readText: options.readText, maxSamples: options.maxSamples }));
+      // The static margin is judged above the scenario layer (it needs the aerodynamics).
+      warnings = [...warnings, ...stabilityWarnings(scenario)];
     } catch (error) {
       if (!(error instanceof ScenarioError)) throw error;
       const siteIssues = error.issues.some((x) => x.path === 'site' || x.path.startsWith('site.') || x.path.startsWith('site['));

@@ -65,7 +65,7 @@ export function buildEventFiles(plan: EventPlan, outcomes: ItemOutcome[], totals
     csv.push([csvCell(a.name), a.kind, a.people ?? '', a.expectedLandings, a.chanceOfAnyLanding, a.expectedCasualties ?? ''].join(','));
   }
   files.push(['event-areas.csv', csv.join('\n') + '\n']);
-  const sheet = buildEventSheet({ totals, site: plan.site, pads: plan.items.map((it) => it.scenario.site.pad), computedAt: iso, version });
+  const sheet = buildEventSheet({ totals, site: plan.site, pads: plan.items.map((it) => it.scenario.site.pad), launches: plan.items.map((it) => it.scenario.launch), computedAt: iso, version });
   files.push(['event-sheet.pdf', sheet.pdf], ['event-map.svg', sheet.svg]);
   outcomes.forEach((o, i) => {
     const folder = totals.items[i].folder;

@@ -17,7 +17,9 @@ import { renderPdf } from '../report/sheet/render-pdf.js';
 import { renderSvg } from '../report/sheet/render-svg.js';
 import { grouped, percent, smallRate, unitFormatter, type UnitSystem } from '../report/sheet/units.js';
 import { toWinAnsi } from '../report/sheet/winansi.js';
-import type { Site } from '../scenario/types.js';
+import type { Launch, Site } from '../scenario/types.js';
+import { eventItemZoneSymbol, riskLineSymbol, WORDS } from '../report/symbols.js';
+import { releaseRoute, routeLegend, routePoints, routeShapes } from '../report/sheet/release-route.js';
 import type { EventTotals } from './combine.js';
 
 export interface EventSheetInput {
@@ -25,6 +27,8 @@ export interface EventSheetInput {
   site: Site;
   /** Every item's pad (items may fly from different pads on the site). */
   pads: { lat: number; lon: number }[];
+  /** Every item's launch, in item order: a drone operation's route or area is drawn. */
+  launches?: Launch[];
   computedAt: string;
   version: string;
 }
@@ -34,19 +38,9 @@ export interface EventSheetChoices {
   units?: UnitSystem;
 }
 
-/** Item zone outlines: dark to light and solid to dashed, so they read apart in grey too. */
-const ITEM_STROKES: Stroke[] = [
-  { color: '#1f4e79', width: 1.1, join: 'round' },
-  { color: '#2e7d4f', width: 1.1, dash: [5, 2], join: 'round' },
-  { color: '#7a4b9c', width: 1.1, dash: [1.5, 2], cap: 'round', join: 'round' },
-  { color: '#9c6b1f', width: 1.1, dash: [6, 2, 1.5, 2], join: 'round' },
-  { color: '#555555', width: 1.1, dash: [3, 3], join: 'round' },
-];
-const RISK_STROKES: Stroke[] = [
-  { color: '#b00020', width: 0.9, dash: [2, 1.5] },
-  { color: '#d2525f', width: 0.8, dash: [2, 1.5] },
-  { color: '#e89aa2', width: 0.8, dash: [2, 1.5] },
-];
+/** Item zones and risk lines in the shared symbol set (src/report/symbols.ts), as on the page's map. */
+const itemStroke = (i: number): Stroke => eventItemZoneSymbol(i);
+const riskStroke = (k: number): Stroke => riskLineSymbol(k);
 
 const riskText = (level: number): string => `1 in ${grouped(Math.round(1 / level))}`;
 
@@ -66,14 +60,20 @@ function mapPage(input: EventSheetInput, paper: Paper, units: UnitSystem, measur
   const areas = input.site.areas.map((a) => ({ area: a, polygons: polygonsInMetres(frame, a.geometry) }));
   let core: Bounds = boundsOfPoints([[0, 0]]);
   for (const z of zones) core = union(core, boundsOfPoints(z.flat(2) as Metres[]));
+  const routes = (input.launches ?? []).flatMap((launch, i) => {
+    const route = releaseRoute(frame, launch);
+    return route ? [{ route, item: t.items[i]?.name ?? String(i + 1) }] : [];
+  });
+  for (const r of routes) core = union(core, boundsOfPoints(routePoints(r.route)));
   const reach = Math.max(Math.abs(core.minX), Math.abs(core.maxX), Math.abs(core.minY), Math.abs(core.maxY));
   const extent = chooseExtent({ core, areas: areas.map((a) => boundsOfPoints(a.polygons.flat(2) as Metres[])), reach });
 
   const legend: LegendEntry[] = [
     { swatch: { kind: 'area', fill: KEEP_OUT_FILL, stroke: KEEP_OUT_STROKE }, text: 'Keep-out zone of the event (union of the items)' },
-    ...t.zones.map((z, i) => ({ swatch: { kind: 'line' as const, stroke: ITEM_STROKES[i % ITEM_STROKES.length] }, text: `Zone: ${z.name}` })),
-    ...t.individualRisk.lines.map((l, k) => ({ swatch: { kind: 'line' as const, stroke: RISK_STROKES[k % RISK_STROKES.length] }, text: `Individual risk ${riskText(l.level)} per event` })),
+    ...t.zones.map((z, i) => ({ swatch: { kind: 'line' as const, stroke: itemStroke(i) }, text: WORDS.eventItemZone(z.name) })),
+    ...t.individualRisk.lines.map((l, k) => ({ swatch: { kind: 'line' as const, stroke: riskStroke(k) }, text: `Individual risk ${riskText(l.level)} per event` })),
     { swatch: { kind: 'pad' }, text: 'Pad' },
+    ...[...new Set(routes.map((r) => r.route.kind))].map((kind) => routeLegend(kind)),
   ];
   const kinds = [...new Set(input.site.areas.map((a) => a.kind))];
   for (const kind of kinds) legend.push({ swatch: { kind: 'area', fill: areaStyle(kind).fill, stroke: areaStyle(kind).stroke }, text: areaStyle(kind).label });
@@ -91,16 +91,17 @@ function mapPage(input: EventSheetInput, paper: Paper, units: UnitSystem, measur
     const style = areaStyle(a.area.kind);
     inside.push({ kind: 'path', className: 'area', d: polygonsPath(view, a.polygons), fill: style.fill, stroke: style.stroke, evenOdd: true });
   }
+  for (const r of routes) inside.push(...routeShapes(view, r.route, { item: r.item }));
   if (unionZone) inside.push({ kind: 'path', id: 'event-zone', d: polygonsPath(view, unionZone), fill: KEEP_OUT_FILL, stroke: KEEP_OUT_STROKE, evenOdd: true });
-  zones.forEach((z, i) => inside.push({ kind: 'path', className: 'item-zone', data: { item: t.zones[i].name }, d: polygonsPath(view, z), stroke: ITEM_STROKES[i % ITEM_STROKES.length] }));
-  t.individualRisk.lines.forEach((l, k) => inside.push({ kind: 'path', className: 'risk-line', data: { level: String(l.level) }, d: polygonsPath(view, polygonsInMetres(frame, l.geometry)), stroke: RISK_STROKES[k % RISK_STROKES.length] }));
+  zones.forEach((z, i) => inside.push({ kind: 'path', className: 'item-zone', data: { item: t.zones[i].name }, d: polygonsPath(view, z), stroke: itemStroke(i) }));
+  t.individualRisk.lines.forEach((l, k) => inside.push({ kind: 'path', className: 'risk-line', data: { level: String(l.level) }, d: polygonsPath(view, polygonsInMetres(frame, l.geometry)), stroke: riskStroke(k) }));
   // Every pad used by an item.
   const pads = new Map<string, [number, number]>([['0,0', view.toPage(0, 0)]]);
   for (const pad of input.pads) {
     const [e, n] = frame.toEastNorth(pad.lon, pad.lat);
     pads.set(`${e.toFixed(1)},${n.toFixed(1)}`, view.toPage(e, n));
   }
-  for (const [x, y] of pads.values()) inside.push(...padSymbol(x, y));
+  [...pads.values()].forEach(([x, y], i) => inside.push({ kind: 'group', ...(i === 0 ? { id: 'pad' } : {}), className: 'pad', shapes: padSymbol(x, y) }));
   for (const a of areas) {
     const ring = a.polygons[0]?.[0];
     if (!ring || ring.length === 0) continue;

@@ -8,8 +8,13 @@
  */
 
 export interface OdeSystem {
-  /** Writes dy/dt at (t, y) into dy. Must not keep references to y or dy. */
-  derivative(t: number, y: Float64Array, dy: Float64Array): void;
+  /**
+   * Writes dy/dt at (time[0], y) into dy. Must not keep references to its arguments. The time
+   * comes in a one-element array rather than as a number: a number that is not a small integer,
+   * passed to a function the compiler does not inline, is boxed on the heap at every call, and
+   * this is called seven times a step.
+   */
+  derivative(time: Float64Array, y: Float64Array, dy: Float64Array): void;
 }
 
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
@@ -37,6 +42,8 @@ export class Dopri5 {
   private readonly k6: Float64Array;
   private readonly k7: Float64Array;
   private readonly tmp: Float64Array;
+  /** The stage time handed to the system (see OdeSystem). */
+  private readonly time = new Float64Array(1);
   private readonly r1: Float64Array;
   private readonly r2: Float64Array;
   private readonly r3: Float64Array;
@@ -50,6 +57,9 @@ export class Dopri5 {
   private t0 = 0;
   private h = 0;
   private fsalValid = false;
+  /** Step-size controller memory: the last accepted error norm, and whether the last try failed. */
+  private errOld = 1e-4;
+  private rejected = false;
 
   constructor(n: number) {
     this.n = n;
@@ -67,6 +77,8 @@ export class Dopri5 {
   reset(y: ArrayLike<number>): void {
     for (let i = 0; i < this.n; i++) this.y[i] = y[i];
     this.fsalValid = false;
+    this.errOld = 1e-4;
+    this.rejected = false;
   }
 
   /**
@@ -74,28 +86,34 @@ export class Dopri5 {
    * Writes the trial state to `yNew`; call `accept()` to make it the current state.
    */
   attempt(sys: OdeSystem, t: number, h: number): number {
-    const n = this.n, y = this.y, tmp = this.tmp;
+    const n = this.n, y = this.y, tmp = this.tmp, time = this.time;
     const k1 = this.k1, k2 = this.k2, k3 = this.k3, k4 = this.k4, k5 = this.k5, k6 = this.k6, k7 = this.k7;
     if (!this.fsalValid) {
-      sys.derivative(t, y, k1);
+      time[0] = t;
+      sys.derivative(time, y, k1);
       this.evaluations++;
       this.fsalValid = true;
     }
     for (let i = 0; i < n; i++) tmp[i] = y[i] + h * A21 * k1[i];
-    sys.derivative(t + C2 * h, tmp, k2);
+    time[0] = t + C2 * h;
+    sys.derivative(time, tmp, k2);
     for (let i = 0; i < n; i++) tmp[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
-    sys.derivative(t + C3 * h, tmp, k3);
+    time[0] = t + C3 * h;
+    sys.derivative(time, tmp, k3);
     for (let i = 0; i < n; i++) tmp[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
-    sys.derivative(t + C4 * h, tmp, k4);
+    time[0] = t + C4 * h;
+    sys.derivative(time, tmp, k4);
     for (let i = 0; i < n; i++) tmp[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
-    sys.derivative(t + C5 * h, tmp, k5);
+    time[0] = t + C5 * h;
+    sys.derivative(time, tmp, k5);
     for (let i = 0; i < n; i++)
       tmp[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
-    sys.derivative(t + h, tmp, k6);
+    time[0] = t + h;
+    sys.derivative(time, tmp, k6);
     const yNew = this.yNew;
     for (let i = 0; i < n; i++)
       yNew[i] = y[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
-    sys.derivative(t + h, yNew, k7);
+    sys.derivative(time, yNew, k7);
     this.evaluations += 6;
     let sum = 0;
     for (let i = 0; i < n; i++) {
@@ -107,6 +125,40 @@ export class Dopri5 {
     this.t0 = t;
     this.h = h;
     return Math.sqrt(sum / n);
+  }
+
+  /**
+   * A first step size from (t, y) after a restart, after the way Hairer's DOPRI5 code chooses it
+   * (ODE I, §II.4): one Euler step of the trial size `h0` estimates the second derivative, then
+   * the step whose fifth-order term would be 1 % of the tolerance, never more than 100 h0 nor
+   * `hMax`. The code's first guess from |y|/|f| is left out: it would make the step depend on state
+   * components that do not move (a rigid body's misalignment direction, drawn per sample, when
+   * there is no misalignment), so equal flights would no longer be flown equally. Costs one
+   * evaluation; the first stage is kept (FSAL).
+   */
+  initialStep(sys: OdeSystem, t: number, h0: number, hMax: number): number {
+    const n = this.n, y = this.y, k1 = this.k1, k2 = this.k2, tmp = this.tmp, atol = this.atol, time = this.time;
+    if (!this.fsalValid) {
+      time[0] = t;
+      sys.derivative(time, y, k1);
+      this.evaluations++;
+      this.fsalValid = true;
+    }
+    const h = h0 < hMax ? h0 : hMax;
+    for (let i = 0; i < n; i++) tmp[i] = y[i] + h * k1[i];
+    time[0] = t + h;
+    sys.derivative(time, tmp, k2);
+    this.evaluations++;
+    let d1 = 0;
+    let d2 = 0;
+    for (let i = 0; i < n; i++) {
+      const sk = atol[i] + this.rtol * Math.abs(y[i]);
+      d1 += (k1[i] / sk) ** 2;
+      d2 += ((k2[i] - k1[i]) / sk) ** 2;
+    }
+    const der = Math.max(Math.sqrt(d2) / h, Math.sqrt(d1));
+    const h1 = der <= 1e-15 ? Math.max(1e-6, h * 1e-3) : Math.exp(0.2 * Math.log(0.01 / der));
+    return Math.min(100 * h, h1, hMax);
   }
 
   /**
@@ -156,4 +208,35 @@ export class Dopri5 {
     if (err === 0) return 5;
     return Math.min(5, Math.max(0.2, 0.9 * Math.exp(-0.2 * Math.log(err))));
   }
+
+  /**
+   * The next step size after an accepted step of size h with error norm err: the proportional-
+   * integral controller of Hairer, Nørsett & Wanner (ODE I, §II.4, and their DOPRI5 code:
+   * exponents 0.2 − 0.75 β and β with β = 0.04, safety 0.9, growth at most 10, shrink at most 5,
+   * no growth right after a rejection). Steps that sit on the stability boundary (a canopy
+   * descent, where drag relaxes the velocity within a fraction of a second) then settle instead of
+   * alternating between accepted and rejected.
+   */
+  nextAfterAccept(h: number, err: number): number {
+    const e = err > 1e-10 ? err : 1e-10;
+    let fac = Math.exp(PI_EXPONENT * Math.log(e) - PI_BETA * Math.log(this.errOld)) / SAFETY;
+    fac = fac < 0.1 ? 0.1 : fac > 5 ? 5 : fac;
+    let next = h / fac;
+    if (this.rejected && next > h) next = h;
+    this.errOld = err > 1e-4 ? err : 1e-4;
+    this.rejected = false;
+    return next;
+  }
+
+  /** The step size to retry with after a rejected step of size h with error norm err (> 1). */
+  nextAfterReject(h: number, err: number): number {
+    this.rejected = true;
+    if (!(err < Infinity)) return h * 0.25;
+    const fac = Math.exp(PI_EXPONENT * Math.log(err)) / SAFETY;
+    return h / (fac < 5 ? fac : 5);
+  }
 }
+
+const PI_BETA = 0.04;
+const PI_EXPONENT = 0.2 - 0.75 * PI_BETA;
+const SAFETY = 0.9;

@@ -53,8 +53,13 @@ export function sigmaWFromW20(w20: number): number {
  * the mean plus three standard deviations (common practice, no source).
  */
 export function sigmaWFromGust(gust: number, mean: number, referenceHeight: number): number {
+  return sigmaWFromGustRatio(gust, mean, drydenAt(referenceHeight).sigmaRatioU);
+}
+
+/** The same with σ_u/σ_w at the reference height worked out once (per scenario, not per sample). */
+export function sigmaWFromGustRatio(gust: number, mean: number, ratioAtReference: number): number {
   const sigmaU = Math.max(0, gust - mean) / 3;
-  return sigmaU / drydenAt(referenceHeight).sigmaRatioU;
+  return sigmaU / ratioAtReference;
 }
 
 /** One step of a unit-variance first-order Gauss–Markov process with correlation φ = exp(−Δ/τ). */

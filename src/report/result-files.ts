@@ -1,36 +1,17 @@
 import type { AnalysisResult } from '../analysis/index.js';
 import type { LandingSet } from '../analysis/types.js';
-import { createLocalFrame } from '../analysis/geodesy.js';
-import { writeContoursGeoJSON, writeKeepOutGeoJSON, landingsGeoJSONChunks } from '../analysis/geojsonWriters.js';
-import { writeAreasCsv } from '../analysis/areasCsv.js';
-import { writeKml } from '../analysis/kml.js';
-import { writeRiskGeoJSON } from '../risk/geojson.js';
 import type { Scenario } from '../scenario/types.js';
-import { landingsCsvChunks } from './landings-csv.js';
-import { landingsFlatGeobufChunks } from '../analysis/flatgeobuf.js';
-import { landingSubset } from '../analysis/thinning.js';
 import type { RunSummary } from './run-summary.js';
-import { reviewFacts, runDate } from './sheet/review-facts.js';
-import { sheetInputFromTexts } from './sheet/sheet-input.js';
-import { buildSheet, type Paper, type UnitSystem } from './sheet/index.js';
+import { buildSheet } from './sheet/index.js';
+import { resultDataFiles, type FileContent, type ResultFileOptions } from './result-data-files.js';
 
-export type FileContent = string | Uint8Array | Iterable<string | Uint8Array>;
-
-export interface ResultFileOptions {
-  /** When the results were computed (default: SOURCE_DATE_EPOCH when set, else now). */
-  computedAt?: Date;
-  /** Units and paper of the sheet (default: the scenario's run.units / run.paper, else metric and A4). */
-  units?: UnitSystem;
-  paper?: Paper;
-}
+export type { FileContent, ResultFileOptions, SheetJob } from './result-data-files.js';
 
 /**
- * Every file of a results folder, by name, in a fixed order. Used by the command line (written to
- * disk) and the web page (offered as downloads), so both produce the same bytes.
- *
- * scenario.json (the normalised scenario as loaded; its hash is summary.scenarioHash) and
- * review.json (figures summary.json lacks) let `strewn sheet` redraw sheet.pdf and map.svg from the
- * folder alone; the sheet here is drawn from the same texts, so both give the same bytes.
+ * Every file of a results folder, by name, in a fixed order, the sheet drawn in this thread. Used
+ * by the web page (offered as downloads) and the event's item folders; `strewn run` writes the same
+ * files from `resultDataFiles` and draws the sheet in a worker thread (src/cli/sheet-thread.ts),
+ * so all give the same bytes.
  */
 export function buildResultFiles(
   scenario: Scenario,
@@ -39,35 +20,8 @@ export function buildResultFiles(
   summary: RunSummary,
   options: ResultFileOptions = {},
 ): [string, FileContent][] {
-  const frame = createLocalFrame(scenario.site.pad);
-  const summaryText = JSON.stringify(summary, null, 2) + '\n';
-  const scenarioText = JSON.stringify(scenario, null, 2) + '\n';
-  const reviewText = JSON.stringify(reviewFacts(analysis, options.computedAt ?? runDate()), null, 2) + '\n';
-  const files: [string, FileContent][] = [
-    ['landings.csv', landingsCsvChunks(set, frame)],
-    ['summary.json', summaryText],
-    ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad, landingSubset(set))],
-    ['landings.fgb', landingsFlatGeobufChunks(set, scenario.site.pad, `Strewn landings: ${scenario.name}`)],
-    ['scenario.json', scenarioText],
-    ['review.json', reviewText],
-  ];
-  let contoursText: string | null = null;
-  let keepOutText: string | null = null;
-  if (analysis !== null) {
-    contoursText = writeContoursGeoJSON(analysis);
-    keepOutText = writeKeepOutGeoJSON(analysis);
-    files.push(
-      ['contours.geojson', contoursText],
-      ['keepout.geojson', keepOutText],
-      ['areas.csv', writeAreasCsv(analysis.areas)],
-      ['result.kml', writeKml(analysis, scenario.site, scenario.name)],
-    );
-    if (analysis.risk) files.push(['risk.geojson', writeRiskGeoJSON(analysis.risk, scenario.site.pad)]);
-  }
-  const sheet = buildSheet(sheetInputFromTexts({ summary: summaryText, scenario: scenarioText, review: reviewText, contours: contoursText, keepOut: keepOutText }, set), {
-    units: options.units ?? scenario.run.units,
-    paper: options.paper ?? scenario.run.paper,
-  });
+  const { files, sheet: job } = resultDataFiles(scenario, set, analysis, summary, options);
+  const sheet = buildSheet(job.input, job.choices);
   files.push(['map.svg', sheet.svg], ['sheet.pdf', sheet.pdf]);
   return files;
 }

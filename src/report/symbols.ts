@@ -107,6 +107,34 @@ export const SYMBOLS = {
    */
   standing: { color: '#0e4a3a', width: 1.9, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' } as LineSymbol,
   standingUnresolved: { color: '#7d8f88', width: 1.1, dash: [8, 2, 1.2, 2, 1.2, 2], join: 'round' } as LineSymbol,
+  /**
+   * Where a released object may fail (drone operations): the route as a dark olive line with a
+   * long dash and a short gap, the operating area as a hatched-looking dashed outline on a faint
+   * fill. Neither is a result, so both stay lighter than the keep-out zone and differ from the
+   * boundary (dash-dot) and the regions (solid, dashed, dotted) by pattern as well as hue.
+   */
+  releasePath: { color: '#4d5a12', width: 2, dash: [10, 2.5], cap: 'butt', join: 'round' } as LineSymbol,
+  releaseArea: {
+    line: { color: '#4d5a12', width: 1.4, dash: [10, 2.5], join: 'round' } as LineSymbol,
+    fill: { color: '#9aab3c', opacity: 0.14 } as FillSymbol,
+  },
+  /**
+   * An event: each item's own keep-out zone, thin, over the heavy line of their union (the keep-out
+   * symbol); item by item dark to light and solid to dashed, so they read apart in grey too.
+   */
+  eventItemZones: [
+    { color: '#1f4e79', width: 1.1, join: 'round' },
+    { color: '#2e7d4f', width: 1.1, dash: [5, 2], join: 'round' },
+    { color: '#7a4b9c', width: 1.1, dash: [1.5, 2], cap: 'round', join: 'round' },
+    { color: '#9c6b1f', width: 1.1, dash: [6, 2, 1.5, 2], join: 'round' },
+    { color: '#555555', width: 1.1, dash: [3, 3], join: 'round' },
+  ] as readonly LineSymbol[],
+  /**
+   * Two studies on one map: A (the saved run, or the first folder) solid dark blue, B (the current
+   * run, or the second folder) dashed burnt orange; in grey they still differ by the dash.
+   */
+  compareA: { color: '#1f4e79', width: 2.4, join: 'round' } as LineSymbol,
+  compareB: { color: '#b3541e', width: 2.4, dash: [7, 3], join: 'round' } as LineSymbol,
   /** The pad: a ringed dot (white disc, dark ring, dark centre); radii in points. */
   pad: { ring: '#141414', ringWidth: 1.4, radius: 4.2, centre: 1.5 },
   /**
@@ -134,6 +162,11 @@ export function contourSymbol(index: number): LineSymbol {
 
 export function riskLineSymbol(index: number): LineSymbol {
   return SYMBOLS.riskLines[Math.min(index, SYMBOLS.riskLines.length - 1)]!;
+}
+
+/** The zone line of an event's item `index`; past the table the styles repeat. */
+export function eventItemZoneSymbol(index: number): LineSymbol {
+  return SYMBOLS.eventItemZones[index % SYMBOLS.eventItemZones.length]!;
 }
 
 export function contourLabelSymbolColor(index: number): string {
@@ -191,6 +224,11 @@ export const WORDS = {
   /** The standing ring: 'Individual risk under 1.0e-6 per flight beyond this line (by octant)'. */
   standing: (level: string, resolved: boolean) => `Individual risk under ${level} per flight beyond this line (by octant)${resolved ? '' : '; not resolved by the samples'}`,
   riskLine: (level: string, resolved: boolean) => `Individual risk ${level} per flight or more${resolved ? '' : ' (faint: not resolved)'}`,
+  releasePath: 'Route flown (failure anywhere along it)',
+  releaseArea: 'Area flown over (failure anywhere inside)',
+  eventItemZone: (name: string) => `Zone: ${name}`,
+  eventUnion: 'Event keep-out zone (all items)',
+  eventRiskLine: (level: string) => `Individual risk ${level} per event or more`,
   sideViewCg: 'CG',
   sideViewCp: 'CP',
   sideViewCgBurnout: 'CG at burnout',

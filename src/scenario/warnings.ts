@@ -2,7 +2,6 @@ import { descentRateForDragArea } from './normalize.js';
 import { formatNumber } from './units.js';
 import type { Issue, Scenario } from './types.js';
 import { plausibilityWarnings } from './plausibility.js';
-import { stabilityFigures } from '../physics/aero.js';
 
 /**
  * Values outside common hobby practice. They are warnings, not errors: the governing numbers are
@@ -37,31 +36,18 @@ export const scenarioWarnings: ScenarioCheck = (scenario) => [
   ...plausibilityWarnings(scenario),
 ];
 
-/** A rocket without a shape flies as a point mass; one with a shape gets its margin checked. */
+/**
+ * A rocket without a shape flies as a point mass, and says so. A shape's static margin needs the
+ * aerodynamics of the physics layer, so it is judged above it (src/flight/stability-warnings.ts),
+ * where the command line, the page and the event add it to these warnings.
+ */
 export function shapeWarnings(scenario: Scenario): Issue[] {
   const v = scenario.vehicle;
   if (v.kind !== 'rocket') return [];
   if (v.shape === undefined || v.diameter === undefined || v.motor?.length === undefined) {
     return [{ path: 'vehicle.shape', message: POINT_MASS_ROCKET_WARNING }];
   }
-  const f = stabilityFigures(v.shape, v.diameter, v.mass, v.motor.propellantMass, v.motor.length);
-  const issues: Issue[] = [];
-  const judge = (margin: number, when: string, path: string) => {
-    if (margin < WARNING_LIMITS.minMargin) {
-      issues.push({
-        path,
-        message: `the static margin ${when} is ${formatNumber(Number(margin.toFixed(2)))} calibres, under the ${WARNING_LIMITS.minMargin} calibre usually asked for${margin < 0 ? ' (the CP is ahead of the CG: the rocket is unstable)' : ''}; check the shape and the balance point`,
-      });
-    } else if (margin > WARNING_LIMITS.maxMargin) {
-      issues.push({
-        path,
-        message: `the static margin ${when} is ${formatNumber(Number(margin.toFixed(2)))} calibres, over the ${WARNING_LIMITS.maxMargin} calibres beyond which a rocket turns hard into the wind; check the shape and the balance point`,
-      });
-    }
-  };
-  judge(f.margin_cal, 'at lift-off', 'vehicle.shape.cg');
-  judge(f.marginBurnout_cal, 'at burnout', 'vehicle.shape.cg');
-  return issues;
+  return [];
 }
 
 /** Shown wherever a rocket without a shape is flown (check, run, sheet, page). */

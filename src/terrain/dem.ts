@@ -1,5 +1,3 @@
-import { fromArrayBuffer } from 'geotiff';
-
 /**
  * A digital elevation model read from a GeoTIFF with the `geotiff` package: heights above sea level
  * on a latitude/longitude grid (WGS 84, EPSG:4326). Projected models (UTM and the like) are refused
@@ -25,6 +23,9 @@ export interface Dem {
 export class DemError extends Error {}
 
 export async function readDem(bytes: Uint8Array): Promise<Dem> {
+  // Loaded here, not with the module: only a scenario with terrain needs the GeoTIFF reader, and
+  // loading it costs every `strewn check` and `strewn run` about 20 ms.
+  const { fromArrayBuffer } = await import('geotiff');
   let image;
   try {
     const buffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;

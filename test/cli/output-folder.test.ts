@@ -175,6 +175,6 @@ describe('run --out: never destroys a folder strewn did not write', () => {
     const error = fileSystemError(Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC' }), '/data/out/landings.csv', 'writing');
     expect(error).toBeInstanceOf(DiskFullError);
     expect(error).not.toBeInstanceOf(UsageError);
-    expect(error.message).toBe("the disk is full while writing '/data/out/landings.csv'; free some space (or choose another --out) and run again");
+    expect(error.message).toBe("the disk is full while writing '/data/out/landings.csv'; free some space (or write elsewhere) and run again");
   });
 });

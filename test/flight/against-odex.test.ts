@@ -3,8 +3,9 @@ import { FlightModel, emptyResult } from '../../src/flight/flight.js';
 import { emptyInputs, type FlightInputs } from '../../src/flight/inputs.js';
 import { FlightStatus } from '../../src/flight/status.js';
 import { SampleStream } from '../../src/dispersion/random.js';
-import type { Scenario } from '../../src/scenario/types.js';
-import { scenario } from '../helpers/build.js';
+import type { ReleaseLaunch, Scenario } from '../../src/scenario/types.js';
+import { ReleaseRoute } from '../../src/dispersion/release-route.js';
+import { body, scenario } from '../helpers/build.js';
 import { odexFlight } from '../reference/odex-flight.js';
 
 // Reference: the same equations integrated by the npm `odex` package (Hairer & Wanner's ODEX
@@ -63,6 +64,45 @@ describe('full rocket flight against the odex integration of the same equations'
 
   it('with Dryden turbulence from the same random stream: landing within 0.5 m', () => {
     const { engine, reference } = both(rocket(250, 6, 5), 0.8);
+    expect(engine.status).toBe(FlightStatus.LANDED);
+    expect(Math.hypot(engine.east - reference.east, engine.north - reference.north)).toBeLessThan(0.5);
+  });
+});
+
+describe('release along a path flown back and forth, against the odex integration', () => {
+  // The reference folds the distance flown onto the path as a triangle wave and places the
+  // object with plain arrays; the engine counts legs (src/dispersion/release-route.ts). Both fly
+  // the load from there under its canopy in a 6 m/s wind.
+  const pad = { lat: 47.3, lon: 8.0 };
+  const sc: Scenario = {
+    ...scenario({
+      vehicle: body('release', 0.9, 1.05, 0.045),
+      launch: {
+        kind: 'release',
+        height: 60,
+        speed: 6,
+        heading: 0,
+        east: 0,
+        north: 0,
+        // Two legs, about 490 m east then 230 m north-east; flown for 300 s, a little over two passes.
+        path: { type: 'LineString', coordinates: [[7.9968, 47.3], [8.0032, 47.3], [8.0054, 47.3015]] },
+        duration: 300,
+      },
+      recovery: [{ name: 'canopy', trigger: 'time', time: 1.5, delay: 0, dragArea: 0.35 }],
+      wind: { speed: 6, from: 280 },
+    }),
+  };
+  sc.site = { ...sc.site, pad: { ...sc.site.pad, ...pad } };
+
+  it.each([0.1, 0.37, 0.62, 0.93])('released after %s of the operation: landing within 0.5 m', (share) => {
+    const stream = new SampleStream();
+    // The route's uniform is the last drawn before turbulence: give both the same share.
+    const route = ReleaseRoute.of(sc.launch as ReleaseLaunch, sc.site)!;
+    route.placeOnPath(share);
+    const inputs = emptyInputs(1);
+    Object.assign(inputs, { mass: 0.9, windSpeed: 6, height: 60, speed: 6, east: route.east, north: route.north, heading: route.heading });
+    const engine = { ...new FlightModel(sc).fly(inputs, () => stream.normal(), emptyResult()) };
+    const reference = odexFlight(sc, { tolerance: 1e-11, releaseShare: share });
     expect(engine.status).toBe(FlightStatus.LANDED);
     expect(Math.hypot(engine.east - reference.east, engine.north - reference.north)).toBeLessThan(0.5);
   });

@@ -31,10 +31,10 @@ function pitchInSteadyStream(options: Partial<FlightOptions>, V: number, theta0:
   const sc = shapedRocket(0, 0, 0, false);
   const model = new FlightModel(sc, { air: constantAir(rho, sound), earth: uniformEarth(), ...options });
   model.fly(inputsFor(sc), () => 0, emptyResult()); // configures the sample (dry balance point, inertia)
-  const tLate = 100; // well after burnout: no thrust, no propellant
+  const late = Float64Array.of(100); // well after burnout: no thrust, no propellant
   const system: OdeSystem = {
-    derivative(_t, y, dy) {
-      model.derivative(tLate, y, dy);
+    derivative(_time, y, dy) {
+      model.derivative(late, y, dy);
       for (let i = 0; i < 6; i++) dy[i] = 0;
     },
   };

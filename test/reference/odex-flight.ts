@@ -16,6 +16,7 @@ import { DragCurve } from '../../src/physics/drag.js';
 import { MotorModel } from '../../src/physics/motor.js';
 import { aeroTable } from '../../src/physics/aero.js';
 import { normalGravityAt, WGS84, type Earth } from '../../src/physics/earth.js';
+import { createLocalFrame } from '../../src/analysis/geodesy.js';
 
 const D = Math.PI / 180;
 
@@ -32,6 +33,11 @@ export interface ReferenceOptions {
   misalignmentDirection?: number;
   /** Rigid body: balance point ready to fly, m from the nose tip (default: the shape's). */
   cg?: number;
+  /**
+   * Release along a path: the share u in (0, 1) of the operation's time flown when the object is
+   * let go (the sample's route uniform). Required when the launch has a path.
+   */
+  releaseShare?: number;
 }
 
 export interface ReferenceLanding {
@@ -219,6 +225,11 @@ export function odexFlight(sc: Scenario, options: ReferenceOptions): ReferenceLa
   } else if (l.kind === 'projectile') {
     const ce = Math.cos(l.elevation * D);
     y = [0, 0, l.height, l.speed * ce * Math.sin(l.azimuth * D), l.speed * ce * Math.cos(l.azimuth * D), l.speed * Math.sin(l.elevation * D)];
+  } else if (l.path !== undefined) {
+    const r = releaseOnPath(sc, options.releaseShare);
+    y = [r.east, r.north, l.height, l.speed * Math.sin(r.heading * D), l.speed * Math.cos(r.heading * D), 0];
+  } else if (l.area !== undefined) {
+    throw new Error('the reference does not model a release over an area');
   } else {
     y = [l.east, l.north, l.height, l.speed * Math.sin(l.heading * D), l.speed * Math.cos(l.heading * D), 0];
   }
@@ -349,4 +360,36 @@ function initialQuaternion(u: number[], direction: number): number[] {
   }
   const S = Math.sqrt(1 + m[2][2] - m[0][0] - m[1][1]) * 2;
   return [(m[1][0] - m[0][1]) / S, (m[0][2] + m[2][0]) / S, (m[1][2] + m[2][1]) / S, 0.25 * S];
+}
+
+/**
+ * Where and heading which way an object flying a path back and forth is let go after a share u of
+ * the operation's time: the distance flown u·speed·duration folded onto the path as a triangle
+ * wave of period twice its length (out along the path, then back), the heading along the segment
+ * in the direction flown. Worked out here with plain arrays and a reflection, apart from the
+ * engine's leg counting; shares only the tested local frame.
+ */
+function releaseOnPath(sc: Scenario, u: number | undefined): { east: number; north: number; heading: number } {
+  const l = sc.launch;
+  if (l.kind !== 'release' || l.path === undefined) throw new Error('no release path');
+  if (u === undefined) throw new Error('releaseShare is needed for a release along a path');
+  const frame = createLocalFrame(sc.site.pad);
+  const points = l.path.coordinates.map(([lon, lat]) => frame.toEastNorth(lon, lat));
+  const lengths = points.slice(1).map((p, i) => Math.hypot(p[0] - points[i][0], p[1] - points[i][1]));
+  const total = lengths.reduce((a, b) => a + b, 0);
+  const flown = u * l.speed * (l.duration ?? total / Math.max(l.speed, 1e-9));
+  // Triangle wave: position along the path p in [0, total], and whether the leg runs backwards.
+  const phase = total > 0 ? flown % (2 * total) : 0;
+  const backwards = phase > total;
+  let along = backwards ? 2 * total - phase : phase;
+  for (let k = 0; k < lengths.length; k++) {
+    if (along <= lengths[k] || k === lengths.length - 1) {
+      const [a, b] = [points[k], points[k + 1]];
+      const f = lengths[k] > 0 ? Math.min(1, along / lengths[k]) : 0;
+      const bearing = (Math.atan2(b[0] - a[0], b[1] - a[1]) * 180) / Math.PI;
+      return { east: a[0] + f * (b[0] - a[0]), north: a[1] + f * (b[1] - a[1]), heading: backwards ? bearing + 180 : bearing };
+    }
+    along -= lengths[k];
+  }
+  return { east: points[0][0], north: points[0][1], heading: 0 };
 }

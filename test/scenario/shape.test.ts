@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parseScenario } from '../../src/scenario/load.js';
+import { stabilityWarnings } from '../../src/flight/stability-warnings.js';
 import { fixture, issuesOf } from './helpers.js';
 
 // Validation of vehicle.shape and motor.length (scenario format, "vehicle.shape (rockets)").
@@ -77,10 +78,11 @@ describe('vehicle.shape', () => {
   it('a margin under 1 calibre or over 6 is a warning, not an error (common practice, no source)', () => {
     const s = shaped();
     s.vehicle.shape.cg = '850 mm'; // CP about 0.851 m: margin near 0
-    const low = parseScenario(s).warnings.filter((w) => w.path === 'vehicle.shape.cg');
+    // Judged above the scenario layer (src/flight/stability-warnings.ts), added by check, run, page, event.
+    const low = stabilityWarnings(parseScenario(s).scenario).filter((w) => w.path === 'vehicle.shape.cg');
     expect(low[0].message).toMatch(/at lift-off is 0\.0\d? calibres, under the 1 calibre/);
     s.vehicle.shape.cg = '400 mm';
-    const high = parseScenario(s).warnings.filter((w) => w.path === 'vehicle.shape.cg');
+    const high = stabilityWarnings(parseScenario(s).scenario).filter((w) => w.path === 'vehicle.shape.cg');
     expect(high[0].message).toMatch(/over the 6 calibres/);
   });
 

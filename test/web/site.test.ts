@@ -291,6 +291,42 @@ describe('site on the map', () => {
     expect(await page.locator('[data-test="refused"]').innerText()).toContain('keeps no forecast or terrain file over a reload');
   }, TEST_TIMEOUT);
 
+  it('with a forecast loaded, the wind limits show the launch window as strewn envelope writes it (window.csv)', async () => {
+    const page = await session.open();
+    await openSite(page);
+    await page.locator('[data-test="ground-files-input"]').setInputFiles(GFS);
+    await page.locator('[data-test="use-forecast"]').click();
+    await expect.poll(() => page.locator('[data-test="forecast-view"]').count(), { timeout: 20_000 }).toBe(1);
+    await page.locator('[data-tab="limits"]').click();
+    await page.locator('[data-test="envelope-directions"]').fill('0:270:90');
+    await page.locator('[data-test="envelope-speeds"]').fill('0:8:4');
+    await page.locator('[data-test="envelope-samples"]').fill('40');
+    await page.locator('[data-test="envelope-compute"]').click();
+    await page.waitForFunction(() => ['finished', 'failed', 'cancelled'].includes(window.__strewn!.envelope().phase), null, { timeout: 150_000 });
+    expect((await page.evaluate(() => window.__strewn!.envelope())).phase).toBe('finished');
+    const rows = (await page.locator('[data-test="launch-window"] tbody tr').allInnerTexts()).map((r) => r.split('\t'));
+    // The chart marks the same hours (the command line's drawing, src/envelope/polar-chart.ts).
+    await expect.poll(() => page.locator('[data-test="envelope-chart"] .launch-window').count(), { timeout: 10_000 }).toBeGreaterThan(0);
+    // The command line on the saved scenario, same grid: its window.csv is the reference.
+    const saved = await savedScenario(page, session.work);
+    const file = join(session.work, 'window.json');
+    writeFileSync(file, JSON.stringify(saved, null, 2));
+    cpSync(join(PROJECT, 'scenarios', 'motors'), join(session.work, 'motors'), { recursive: true });
+    cpSync(GFS, join(session.work, GFS.split('/').pop()!));
+    const out = join(session.work, 'window-out');
+    execFileSync(process.execPath, [join(PROJECT, 'dist/src/cli/main.js'), 'envelope', file, '--directions', '0:270:90', '--speeds', '0:8:4', '--samples', '40', '--out', out, '--force', '--quiet'], { cwd: PROJECT });
+    const csv = readFileSync(join(out, 'window.csv'), 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
+    expect(csv.length).toBeGreaterThan(0);
+    expect(rows.length).toBe(csv.length);
+    for (const [i, [time, speed, from, limit, inside]] of csv.entries()) {
+      const row = rows[i]!;
+      expect(row[0]).toBe(time!.slice(11, 16));
+      expect(row[1]).toBe(`${Number(speed).toFixed(1)} from ${Math.round(Number(from))}°`);
+      expect(row[2]).toBe(limit === '' ? '–' : Number(limit).toFixed(1));
+      expect(row[3]).toBe(inside === 'yes' ? 'inside' : 'OUTSIDE');
+    }
+  }, TEST_TIMEOUT);
+
   it('a GeoTIFF terrain loads, its contours are drawn on the map, and the run flies over it', async () => {
     const page = await session.open();
     await openSite(page);

@@ -21,6 +21,7 @@ import { tabs } from './panels/tabs.js';
 import { unitSwitch } from './panels/unit-switch.js';
 import { installDropTarget } from './panels/drop-target.js';
 import { installTestHook } from './test-hook.js';
+import { installEventView } from './event/install.js';
 import { SiteSession } from './map/site-session.js';
 import { SiteEditor } from './map/site-editor.js';
 import { TerrainLayer } from './map/terrain-layer.js';
@@ -87,6 +88,7 @@ function boot(): void {
   const terrainLayer = mapView ? new TerrainLayer(mapView.map, mapView.ready()) : null;
 
   const side = byId('side');
+  const eventView = installEventView(store, mapView);
   const workspaceTabs = tabs(
     [
       { id: 'setup', title: 'Setup', panel: scenarioPanel(store, controller) },
@@ -95,6 +97,8 @@ function boot(): void {
       { id: 'limits', title: 'Wind limits', panel: envelopePanel(store, controller) },
       { id: 'files', title: 'Files', panel: exportPanel(store, controller) },
       { id: 'map', title: 'Map', panel: settingsPanel(controller, mapView !== null, (listener) => mapView && (mapView.onBasemapError = listener)) },
+      // The event view and the saved-run comparison (web/src/event/install.ts).
+      ...eventView.tabs,
     ],
     'Workspace',
   );
@@ -105,7 +109,11 @@ function boot(): void {
     if (state.study !== previous.study && state.study !== null) workspaceTabs.select('findings');
   });
 
-  installDropTarget(document.body, (files) => controller.openFiles(files));
+  installDropTarget(document.body, (files) => {
+    if (!eventView.opens(files)) return controller.openFiles(files);
+    workspaceTabs.select('event');
+    return eventView.openFiles(files);
+  });
 
   if (mapView) {
     const view = mapView;

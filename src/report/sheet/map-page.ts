@@ -24,6 +24,7 @@ import type { SheetInput } from './sheet-input.js';
 import { WORDS } from '../symbols.js';
 import { grouped, levelText, percent, smallRate, unitFormatter, type UnitSystem } from '../format-number.js';
 import { toWinAnsi } from './winansi.js';
+import { releaseRoute, routeLegend, routePoints, routeShapes, type ReleaseRoute } from './release-route.js';
 
 /** A short id for a level: 0.9 → '90', 0.995 → '99.5'. */
 export function levelId(level: number): string {
@@ -55,7 +56,9 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   const boundary = scenario.site.boundary ? polygonsInMetres(frame, scenario.site.boundary) : null;
   const basemap = readBasemap(frame, scenario.site.basemap);
   const minimumDistance = scenario.site.minimumDistance;
-  const release = scenario.launch.kind === 'release' && (scenario.launch.east !== 0 || scenario.launch.north !== 0) ? ([scenario.launch.east, scenario.launch.north] as Metres) : null;
+  // A drone operation's route or area replaces the single release point.
+  const route = releaseRoute(frame, scenario.launch);
+  const release = route === null && scenario.launch.kind === 'release' && (scenario.launch.east !== 0 || scenario.launch.north !== 0) ? ([scenario.launch.east, scenario.launch.north] as Metres) : null;
   const landings = input.landings;
   const risk = summary.risk;
   const standing = risk ? standingRing(risk.standingDistance_m) : null;
@@ -66,6 +69,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   for (const c of contours) core = union(core, boundsOfPoints(pointsOf(c.polygons)));
   if (minimumDistance) core = union(core, { minX: -minimumDistance, minY: -minimumDistance, maxX: minimumDistance, maxY: minimumDistance });
   if (release) core = union(core, boundsOfPoints([release]));
+  if (route) core = union(core, boundsOfPoints(routePoints(route)));
   if (standing) core = union(core, boundsOfPoints(standing.map((p) => [p[0], p[1]] as Metres)));
   if (!keepOut && landings) core = union(core, boundsOfPoints(landings.east.map((e, i) => [e, landings.north[i]] as Metres)));
   const reach = Math.max(Math.abs(core.minX), Math.abs(core.maxX), Math.abs(core.minY), Math.abs(core.maxY));
@@ -90,7 +94,7 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
   const noteReserve = areas.length > 0 || landings !== null ? wrapText(measure, toWinAnsi(offMapNote(offMapAtMost.map((a) => a.area.name), landings ? landings.east.length : 0, areas.length > 0, areas.length > 1)), noteSize, 'italic', contentWidth).length * noteSize * 1.25 + 2 : 0;
   /** The frame takes the height the legend and the caution leave. */
   const frameFor = (kinds: Set<string>) => {
-    const entries = buildLegendEntries(input, contours.map((c) => c.level), basemap.map((b) => b.kind), units.system, release !== null, kinds);
+    const entries = buildLegendEntries(input, contours.map((c) => c.level), basemap.map((b) => b.kind), units.system, release !== null, kinds, route);
     const legendHeight = layoutLegend(entries, 0, 0, contentWidth, legendColumns, measure).height;
     const available = paper.height - MARGIN - caution - 8 - noteReserve - legendHeight - 8 - frameTop;
     return { entries, view: fitView(extent, { x: MARGIN, y: frameTop, width: contentWidth, height: available }) };
@@ -127,6 +131,8 @@ export function buildMapPage(input: SheetInput, options: SheetOptions, totalPage
     const style = areaStyle(a.area.kind);
     inside.push({ kind: 'path', id: `area-${a.index + 1}`, className: `area area-${a.area.kind}`, data: { name: a.area.name }, d: polygonsPath(view, a.polygons), fill: style.fill, stroke: style.stroke, evenOdd: true });
   }
+  // Under the landings and the results: where the object may fail is context for where it lands.
+  if (route) inside.push({ kind: 'group', id: route.kind === 'path' ? 'release-path' : 'release-area', shapes: routeShapes(view, route) });
   let landingsOffMap = 0;
   if (landings) {
     const groups = new Map<number, number[]>();
@@ -360,7 +366,7 @@ function rangeRings(view: MapView, system: UnitSystem): { shapes: Shape[]; label
   return { shapes: [{ kind: 'group', id: 'range-rings', shapes }], labels };
 }
 
-function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: string[], system: UnitSystem, hasRelease: boolean, areaKinds: Set<string>): LegendEntry[] {
+function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: string[], system: UnitSystem, hasRelease: boolean, areaKinds: Set<string>, route: ReleaseRoute | null = null): LegendEntry[] {
   const units = unitFormatter(system);
   const entries: LegendEntry[] = [];
   const k = input.keepOut?.features[0]?.properties;
@@ -373,6 +379,7 @@ function buildLegendEntries(input: SheetInput, levels: number[], basemapKinds: s
   if (input.scenario.site.minimumDistance) entries.push({ swatch: { kind: 'line', stroke: MINIMUM_DISTANCE_STROKE }, text: `Minimum distance ${units.length(input.scenario.site.minimumDistance)} (site setting)` });
   entries.push({ swatch: { kind: 'pad' }, text: WORDS.pad });
   if (hasRelease) entries.push({ swatch: { kind: 'release' }, text: 'Release point' });
+  if (route) entries.push(routeLegend(route.kind));
   entries.push({ swatch: { kind: 'line', stroke: RING_STROKE }, text: WORDS.rings });
   if (input.scenario.site.boundary) entries.push({ swatch: { kind: 'line', stroke: BOUNDARY_STROKE }, text: WORDS.boundary });
   if (input.scenario.site.terrain) {

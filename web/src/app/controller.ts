@@ -1,9 +1,10 @@
 import { baseName, documentText, withValue, type FieldPath, type ScenarioDocument } from '../scenario/document.js';
+import { launchWindow } from '../../../src/envelope/launch-window.js';
 import { DEMOS } from '../scenario/demos.js';
 import { keepWorkspace } from '../scenario/persist.js';
 import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenario/read-files.js';
 import { validateDocument } from '../scenario/validate.js';
-import { isBinaryFile, readBinaryFiles } from '../scenario/ground-files.js';
+import { binaryReader, isBinaryFile, readBinaryFiles } from '../scenario/ground-files.js';
 import { composeStudy } from '../study/compose.js';
 import { redrawMapSvg, redrawReviewSheet } from '../study/review-sheet.js';
 import { isCancellation, runEngine } from '../study/engine.js';
@@ -207,6 +208,15 @@ export class Controller implements Actions {
         signal: controller.signal,
         onProgress: (progress, done, planned) => this.store.update({ envelope: { ...this.store.get().envelope, progress, done, planned } }),
       });
+      // The launch window, as `strewn envelope` draws it: the forecast's hours against the limits.
+      const forecast = accepted.scenario.weather.forecast;
+      if (forecast !== undefined) {
+        try {
+          envelope.window = launchWindow(envelope, binaryReader(state.draft.binaries)(forecast.file), accepted.scenario);
+        } catch {
+          // The forecast file is no longer loaded (a reload): the limits stand without the window.
+        }
+      }
       const outcome = { envelope, hash: accepted.hash, key: limitsKey(accepted.scenario), computedAt: isoSeconds(new Date()) };
       this.store.update({ envelope: { phase: 'finished', progress: 1, done: envelope.casesFlown, planned: envelope.casesFlown, message: '', outcome } });
     } catch (error) {

@@ -127,7 +127,7 @@ export function envelopePanel(store: Store, actions: Actions): HTMLElement {
     if (signature !== drawn) {
       drawn = signature;
       void drawChart(shown, units, fresh);
-      replaceChildren(table, limitsTable(shown, units, fresh, (from, speed) => pick(from, speed)));
+      replaceChildren(table, limitsTable(shown, units, fresh, (from, speed) => pick(from, speed)), ...(shown.window && shown.window.length > 0 ? [windowTable(shown.window, units)] : []));
     }
   };
 
@@ -222,6 +222,29 @@ function limitsTable(e: EnvelopeResult, units: UnitSystem, loadable: boolean, lo
     { class: 'envelope-table' },
     el('caption', { text: 'Limits by direction' }),
     el('thead', {}, el('tr', {}, ...head.map((h) => el('th', { text: h, attrs: { scope: 'col' } })))),
+    el('tbody', {}, ...rows),
+  );
+}
+
+/** The launch window: each forecast hour of the day against the limits, as `strewn envelope` prints it. */
+function windowTable(hours: NonNullable<EnvelopeResult['window']>, units: UnitSystem): HTMLElement {
+  const unit = fieldUnit('speed', units);
+  const bare = (v: number) => grouped(v / unit.si, unit.label === 'mph' ? 0 : 1);
+  const rows = hours.map((h) =>
+    el(
+      'tr',
+      { data: { inside: String(h.inside) } },
+      el('th', { attrs: { scope: 'row' }, text: h.time.slice(11, 16) }),
+      el('td', { text: `${bare(h.speed)} from ${Math.round(h.from)}°` }),
+      el('td', { text: h.limit === null ? '–' : bare(h.limit) }),
+      el('td', { text: h.inside ? 'inside' : 'OUTSIDE' }),
+    ),
+  );
+  return el(
+    'table',
+    { class: 'envelope-table', attrs: { 'data-test': 'launch-window' } },
+    el('caption', { text: `Launch window ${hours[0]!.time.slice(0, 10)} (UTC): the forecast wind at the reference height against the limits` }),
+    el('thead', {}, el('tr', {}, ...['Hour', `Forecast (${unit.label})`, `Limit (${unit.label})`, 'Judged'].map((h) => el('th', { text: h, attrs: { scope: 'col' } })))),
     el('tbody', {}, ...rows),
   );
 }

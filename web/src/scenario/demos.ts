@@ -15,7 +15,8 @@ export interface Demo {
   intro: string;
 }
 
-const SCENARIO_TEXTS = import.meta.glob('../../../scenarios/*.json', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
+// Event plans (*.event.json) are not scenarios: the Event tab opens them (web/src/event/event-demos.ts).
+const SCENARIO_TEXTS = import.meta.glob(['../../../scenarios/*.json', '!../../../scenarios/*.event.json'], { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
 const MOTOR_TEXTS = import.meta.glob('../../../scenarios/motors/*.csv', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
 
 const fileNameOf = (path: string) => path.split('/').pop()!;

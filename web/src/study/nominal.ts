@@ -2,6 +2,7 @@ import { createLocalFrame } from '../../../src/analysis/geodesy.js';
 import { flyNominal } from '../../../src/dispersion/runner.js';
 import { machWarnings, railExitSpeedWarnings } from '../../../src/scenario/warnings.js';
 import { apogeeWarnings } from '../../../src/scenario/plausibility.js';
+import { stabilityWarnings } from '../../../src/flight/stability-warnings.js';
 import type { Issue, Scenario } from '../../../src/scenario/types.js';
 import type { FlightResult } from '../../../src/flight/flight.js';
 
@@ -37,6 +38,6 @@ export function nominalFlight(scenario: Scenario): NominalFlight {
     track,
     apogee,
     landed: result.status === 0,
-    warnings: [...railExitSpeedWarnings(scenario, result.railExitSpeed), ...machWarnings(scenario, result.maxMach), ...apogeeWarnings(result.apogee)],
+    warnings: [...stabilityWarnings(scenario), ...railExitSpeedWarnings(scenario, result.railExitSpeed), ...machWarnings(scenario, result.maxMach), ...apogeeWarnings(result.apogee)],
   };
 }
