@@ -74,6 +74,8 @@ export class BreakupFlyer {
   private as = new Float64Array(256 * 3);
   private n = 0;
   private readonly dy: Float64Array;
+  /** The time handed to the model's derivative (a one-element array, as the stepper does). */
+  private readonly time = new Float64Array(1);
   readonly sink: TrackSink;
 
   // The object's gust normals, replayed to the pieces.
@@ -274,7 +276,8 @@ export class BreakupFlyer {
     this.tt[n] = t;
     for (let c = 0; c < 6; c++) this.ys[6 * n + c] = y[c];
     // The acceleration at this state, for the Hermite interpolant of the velocity.
-    this.parent.derivative(t, y, this.dy);
+    this.time[0] = t;
+    this.parent.derivative(this.time, y, this.dy);
     this.as[3 * n] = this.dy[3];
     this.as[3 * n + 1] = this.dy[4];
     this.as[3 * n + 2] = this.dy[5];
