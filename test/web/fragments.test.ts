@@ -9,7 +9,7 @@ describe('workspace: fragments', () => {
   it('opens the burst demo, runs it and lists the parts and their impacts in Findings', async () => {
     const page = await session.open();
     await page.locator('#demo-select').selectOption('display-shell-burst');
-    await page.locator('button:has-text("Open demo")').click();
+    await page.getByRole('button', { name: 'Open demo', exact: true }).click();
     await expect.poll(() => page.evaluate(() => window.__strewn!.scenario().name)).toMatch(/burst/);
     await setField(page, 'run.samples', '300');
     expect(await runAndWait(page)).toBe('finished');
