@@ -311,7 +311,7 @@ describe('map workspace', () => {
     expect(await page.locator('[data-test="scenario-file"]').innerText()).toContain('dropped-shell.json');
 
     await page.locator('#demo-select').selectOption('drone-power-loss');
-    await page.locator('button:has-text("Open demo")').click();
+    await page.getByRole('button', { name: 'Open demo', exact: true }).click();
     const drone = JSON.parse(readFileSync(join(PROJECT, 'scenarios', 'drone-power-loss.json'), 'utf8'));
     await expect.poll(() => page.evaluate(() => window.__strewn!.scenario().name)).toBe(drone.name);
     await shot(page, '10-drone-demo');
