@@ -442,10 +442,12 @@ function expectSameText(actual: string, expected: string, name: string): void {
     // Identical pieces agree (a hex hash can hold "99e476", which is no finite number).
     if (a[i] === e[i]) continue;
     const decimals = (t: string) => (/\.(\d+)/.exec(t)?.[1]?.length ?? 0);
+    // One unit in the last printed digit (a value ~1e-8 m apart may round either way), with room
+    // for the binary subtraction itself (303.985 − 303.984 is 0.00100000000003 in doubles).
     const lastDigit = 10 ** -Math.min(decimals(a[i]!), decimals(e[i]!));
     const x = Number(a[i]);
     const y = Number(e[i]);
-    expect(Math.abs(x - y), `${name}: number ${a[i]} against ${e[i]}`).toBeLessThanOrEqual(Math.max(lastDigit, 1e-9 * Math.abs(y)));
+    expect(Math.abs(x - y), `${name}: number ${a[i]} against ${e[i]}`).toBeLessThanOrEqual(Math.max(lastDigit * (1 + 1e-9), 1e-9 * Math.abs(y)));
   }
 }
 

@@ -1,5 +1,4 @@
 import { baseName, documentText, withValue, type FieldPath, type ScenarioDocument } from '../scenario/document.js';
-import { launchWindow } from '../../../src/envelope/launch-window.js';
 import { DEMOS } from '../scenario/demos.js';
 import { keepWorkspace } from '../scenario/persist.js';
 import { openScenarioFiles, openScenarioText, type OpenOutcome } from '../scenario/read-files.js';
@@ -211,6 +210,8 @@ export class Controller implements Actions {
       // The launch window, as `strewn envelope` draws it: the forecast's hours against the limits.
       const forecast = accepted.scenario.weather.forecast;
       if (forecast !== undefined) {
+        // Loaded on demand, like the chart code it uses, to keep the page's first load small.
+        const { launchWindow } = await import('../../../src/envelope/launch-window.js');
         try {
           envelope.window = launchWindow(envelope, binaryReader(state.draft.binaries)(forecast.file), accepted.scenario);
         } catch {
