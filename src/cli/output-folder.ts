@@ -288,7 +288,20 @@ export class OutputFolder {
       createdParents.unshift(p);
       if (dirname(p) === p) break;
     }
-    for (const p of createdParents) attempt(p, 'creating the folder', () => mkdirSync(p, { mode: 0o777 }));
+    // Another process may make the same parent at the same moment (shards started at once into
+    // one folder): a folder that appears meanwhile is not ours, so it is kept, never removed.
+    for (const p of [...createdParents]) {
+      const made = attempt(p, 'creating the folder', () => {
+        try {
+          mkdirSync(p, { mode: 0o777 });
+          return true;
+        } catch (error) {
+          if ((error as NodeJS.ErrnoException).code === 'EEXIST' && lstatSync(p).isDirectory()) return false;
+          throw error;
+        }
+      });
+      if (!made) createdParents.splice(createdParents.indexOf(p), 1);
+    }
     const undoParents = () => {
       for (const p of [...createdParents].reverse()) {
         try {
