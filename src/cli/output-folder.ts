@@ -135,8 +135,11 @@ function processAlive(pid: number): boolean {
 
 function ownerOf(file: string): number | undefined {
   try {
-    const pid = Number(readFileSync(file, 'utf8').trim().split(/\s+/)[0]);
-    return Number.isInteger(pid) ? pid : undefined;
+    // A file another process is writing this instant may read empty: Number('') is 0, which must
+    // not pass for a process that is gone (its live staging folder or lock would be swept).
+    const text = readFileSync(file, 'utf8').trim().split(/\s+/)[0] ?? '';
+    const pid = /^[1-9]\d*$/.test(text) ? Number(text) : NaN;
+    return Number.isSafeInteger(pid) ? pid : undefined;
   } catch {
     return undefined;
   }

@@ -120,6 +120,18 @@ describe('run --out: never destroys a folder strewn did not write', () => {
     expect(readdirSync(dir)).toEqual(['.x.partial-new1']);
   });
 
+  it('a fresh staging folder and lock whose owner file reads empty (being written this instant) are kept', () => {
+    // Shards started at once into one folder: one sweeps while another has just created its owner
+    // file but not yet written its process number (common practice, no source: a file being
+    // written may be read empty).
+    const dir = tempDir();
+    mkdirSync(join(dir, '.shard-1-of-4.partial-abc123'));
+    writeFileSync(join(dir, '.shard-1-of-4.partial-abc123', '.strewn-owner'), '');
+    writeFileSync(join(dir, '.shard-2-of-4.lock'), '');
+    expect(sweepLeftovers(dir)).toEqual([]);
+    expect(readdirSync(dir).sort()).toEqual(['.shard-1-of-4.partial-abc123', '.shard-2-of-4.lock']);
+  });
+
   it('parent folders created for --out are removed again when the run fails', () => {
     const dir = tempDir();
     const out = join(dir, 'a', 'b', 'out');
