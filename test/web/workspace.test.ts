@@ -365,18 +365,28 @@ describe('map workspace', () => {
     expect(await page.evaluate(() => (document.activeElement as HTMLElement).dataset.tab)).toBe('site');
   }, TEST_TIMEOUT);
 
-  it.skipIf(process.env.STREWN_SKIP_WEB_TIMING === '1')('times 20,000 samples in the page against the command line', async () => {
+  it.skipIf(process.env.STREWN_SKIP_WEB_TIMING === '1')('times 20,000 samples in the page against the command line, with the same findings', async () => {
     const page = await openWorkspace();
     await setField(page, 'run.samples', '20000');
     const started = Date.now();
     expect(await runAndWait(page, 300_000)).toBe('finished');
+    // Results shown: the findings drawn (phase "finished") and the map done drawing the zone.
+    await mapIdle(page);
     const pageWall = (Date.now() - started) / 1000;
     const pageFlights = (await page.evaluate(() => window.__strewn!.run().flightTime_ms))! / 1000;
     await shot(page, '11-twenty-thousand');
 
     const cliStarted = Date.now();
-    cliRun(join(PROJECT, 'scenarios', 'club-rocket.json'), join(session.work, 'timing-out'), ['--samples', '20000']);
+    const cli = cliRun(join(PROJECT, 'scenarios', 'club-rocket.json'), join(session.work, 'timing-out'), ['--samples', '20000']);
     const cliWall = (Date.now() - cliStarted) / 1000;
+    // The page's 20,000 flights and findings are the command line's (same engine, same seed; the
+    // numbers within the 1e-9 relative of the two V8s, see the first test).
+    const summary = await summaryOf(page);
+    expect(summary.samples).toBe(20_000);
+    for (const key of ['seed', 'failedSamples', 'failures', 'apogee_m', 'flightTime_s', 'farthestLanding', 'modes', 'contours', 'keepOut', 'areas', 'risk', 'sensitivity'] as const) {
+      expectSameFigures((summary as unknown as Record<string, unknown>)[key], (cli as unknown as Record<string, unknown>)[key], `summary.${key}`);
+    }
+    expect(await page.evaluate(() => window.__strewn!.sourceData('landings').features.length)).toBe(cli.samples - cli.failedSamples);
     const figure = { samples: 20_000, pageWall_s: pageWall, pageFlights_s: pageFlights, cliWall_s: cliWall, ratio: pageWall / cliWall };
     writeFileSync(join(ARTIFACTS, 'timing.json'), JSON.stringify(figure, null, 2) + '\n');
     console.log(`20,000 samples: page ${pageWall.toFixed(1)} s (flights ${pageFlights.toFixed(1)} s), CLI ${cliWall.toFixed(1)} s, ratio ${figure.ratio.toFixed(2)}`);
