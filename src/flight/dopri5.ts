@@ -7,15 +7,9 @@
  * and reused as the next step's first stage (FSAL).
  */
 
-export interface OdeSystem {
-  /**
-   * Writes dy/dt at (time[0], y) into dy. Must not keep references to its arguments. The time
-   * comes in a one-element array rather than as a number: a number that is not a small integer,
-   * passed to a function the compiler does not inline, is boxed on the heap at every call, and
-   * this is called seven times a step.
-   */
-  derivative(time: Float64Array, y: Float64Array, dy: Float64Array): void;
-}
+import type { OdeSystem, Stepper } from './stepper.js';
+
+export type { OdeSystem } from './stepper.js';
 
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
 const A21 = 1 / 5;
@@ -28,7 +22,7 @@ const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E
 const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072,
   D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
 
-export class Dopri5 {
+export class Dopri5 implements Stepper {
   readonly n: number;
   /** State at the start of the current step. */
   readonly y: Float64Array;
