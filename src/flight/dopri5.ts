@@ -52,7 +52,7 @@ export class Dopri5 implements Stepper {
   private h = 0;
   private fsalValid = false;
   /** Step-size controller memory: the last accepted error norm, and whether the last try failed. */
-  private errOld = 1e-4;
+  private logErrOld = LOG_ERR_START;
   private rejected = false;
 
   constructor(n: number) {
@@ -71,7 +71,7 @@ export class Dopri5 implements Stepper {
   reset(y: ArrayLike<number>): void {
     for (let i = 0; i < this.n; i++) this.y[i] = y[i];
     this.fsalValid = false;
-    this.errOld = 1e-4;
+    this.logErrOld = LOG_ERR_START;
     this.rejected = false;
   }
 
@@ -213,11 +213,12 @@ export class Dopri5 implements Stepper {
    */
   nextAfterAccept(h: number, err: number): number {
     const e = err > 1e-10 ? err : 1e-10;
-    let fac = Math.exp(PI_EXPONENT * Math.log(e) - PI_BETA * Math.log(this.errOld)) / SAFETY;
+    let fac = Math.exp(PI_EXPONENT * Math.log(e) - PI_BETA * this.logErrOld) / SAFETY;
     fac = fac < 0.1 ? 0.1 : fac > 5 ? 5 : fac;
     let next = h / fac;
     if (this.rejected && next > h) next = h;
-    this.errOld = err > 1e-4 ? err : 1e-4;
+    // Its logarithm is what the next step needs (one logarithm a step saved).
+    this.logErrOld = Math.log(err > 1e-4 ? err : 1e-4);
     this.rejected = false;
     return next;
   }
@@ -232,5 +233,6 @@ export class Dopri5 implements Stepper {
 }
 
 const PI_BETA = 0.04;
+const LOG_ERR_START = Math.log(1e-4);
 const PI_EXPONENT = 0.2 - 0.75 * PI_BETA;
 const SAFETY = 0.9;
