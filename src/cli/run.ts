@@ -15,6 +15,7 @@ import { parseShardOption, shardFolderName } from './shard-option.js';
 import { writeShardFolder } from './shard-folder.js';
 import { honourInterrupt } from './study-files-light.js';
 import { SheetThread } from './sheet-thread.js';
+import { StudyThread } from './study-thread.js';
 import { PhaseTimer } from './phase-timer.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
 
@@ -123,6 +124,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   const bar = progressBar(process.stderr, !quiet);
   timer.lap('scenario and nominal flight');
   let sheetThread: SheetThread | undefined;
+  let studyThreads: StudyThread[] = [];
   try {
     const range = shard ? shardRange(samples, shard) : undefined;
     // The analysis, report and sheet code loads while the workers fly.
@@ -161,9 +163,14 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
       else if (!quiet) process.stdout.write(formatRunSummary(summary, out.destination));
       return 0;
     }
-    // The sheet's thread loads the sheet code while the samples fly.
+    // The threads that analyse and write the results load their code while the samples fly.
     sheetThread = shard ? undefined : SheetThread.start();
-    const run = await runInPool({ scenario, samples, seed }, { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p) });
+    const [analysisThread, sideThread] = (studyThreads = shard ? [] : [StudyThread.start(['analysis']), StudyThread.start(['sensitivity', 'landings'])]);
+    const run = await runInPool(
+      { scenario, samples, seed },
+      // Shared columns: the study threads read the run without a copy.
+      { workers, createWorker, signal: interrupt.signal, range, onProgress: (p) => bar.update(p), sharedColumns: !shard },
+    );
     bar.end();
     timer.lap('flights (workers; main thread waits)');
     if (shard) {
@@ -179,8 +186,16 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
       }
       return 0;
     }
-    const { writeStudyFiles } = await files!;
-    const summary = await writeStudyFiles(out, scenario, loaded.hash, run, loaded.warnings, { timer, display: { units, paper }, signal: interrupt.signal, sheet: sheetThread });
+    const { writeStudyFilesInThreads } = await files!;
+    const summary = await writeStudyFilesInThreads(
+      out,
+      scenario,
+      loaded.hash,
+      run,
+      loaded.warnings,
+      { analysis: analysisThread, side: sideThread, sheet: sheetThread! },
+      { timer, display: { units, paper }, signal: interrupt.signal },
+    );
     await honourInterrupt(interrupt.signal);
     out.commit();
     timer.lap('commit');
@@ -190,6 +205,8 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   } finally {
     sheetThread?.dispose();
     bar.end();
+    // A study thread may be writing into the staging folder: it has stopped before the folder goes.
+    await Promise.all(studyThreads.map((t) => t.stop()));
     out.discard();
     interrupt.dispose();
   }

@@ -3,7 +3,7 @@ import { landingSetFromRun } from '../analysis/from-run.js';
 import type { LandingSet } from '../analysis/types.js';
 import type { RunResult } from '../dispersion/results.js';
 import type { Issue, Scenario } from '../scenario/types.js';
-import { studySensitivity } from '../sensitivity/study.js';
+import { studySensitivity, type StudySensitivity } from '../sensitivity/study.js';
 import { riskSettings } from '../risk/settings.js';
 import { buildRunSummary, type RunSummary } from './run-summary.js';
 import { landingSubset } from '../analysis/thinning.js';
@@ -27,12 +27,33 @@ export interface StudyOutcome {
  */
 export function studyOutcome(scenario: Scenario, hash: string, run: RunResult, warnings: Issue[]): StudyOutcome {
   const set = landingSetFromRun(run, scenario);
-  const analysis =
-    set.east.length >= MIN_LANDINGS_FOR_ANALYSIS
-      ? analyze(set, scenario.site, scenario.run, { risk: riskSettings(scenario), samples: run.count })
-      : null;
+  return outcomeFromParts(scenario, hash, run, warnings, set, studyAnalysis(scenario, run, set), studySpreadSensitivity(scenario, run));
+}
+
+/** The analysis of a run's landings (null below MIN_LANDINGS_FOR_ANALYSIS). A part of `studyOutcome`. */
+export function studyAnalysis(scenario: Scenario, run: RunResult, set: LandingSet): AnalysisResult | null {
+  return set.east.length >= MIN_LANDINGS_FOR_ANALYSIS ? analyze(set, scenario.site, scenario.run, { risk: riskSettings(scenario), samples: run.count }) : null;
+}
+
+/** What drives the spread, when anything is spread or can fail. A part of `studyOutcome`. */
+export function studySpreadSensitivity(scenario: Scenario, run: RunResult): StudySensitivity | undefined {
   const varies = Object.keys(scenario.uncertainty).length > 0 || scenario.failures.length > 0;
-  const sensitivity = varies ? studySensitivity(scenario, run) : undefined;
+  return varies ? studySensitivity(scenario, run) : undefined;
+}
+
+/**
+ * The outcome from its parts, computed apart (the command line computes the analysis and the
+ * sensitivity in other threads, at the same time); `studyOutcome` is this with the parts made here.
+ */
+export function outcomeFromParts(
+  scenario: Scenario,
+  hash: string,
+  run: RunResult,
+  warnings: Issue[],
+  set: LandingSet,
+  analysis: AnalysisResult | null,
+  sensitivity: StudySensitivity | undefined,
+): StudyOutcome {
   const subset = landingSubset(set);
   const summary: RunSummary = {
     ...buildRunSummary(scenario, hash, run, analysis, warnings, sensitivity),
