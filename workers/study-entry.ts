@@ -13,10 +13,20 @@ import type { StudyTask, StudyTaskName, StudyTaskReply } from '../src/cli/study-
 if (!parentPort) throw new Error('study-entry.js runs only as a worker thread');
 const port = parentPort;
 
-// The code of the tasks this thread is meant for loads now, while the samples still fly.
-const study = import('../src/report/study.js');
+// The code of each task loads once, when first needed; that of the tasks this thread is meant
+// for loads now, while the samples still fly. Only the analysis loads the geometry libraries.
+const code = {
+  analysis: () => import('../src/report/study.js'),
+  sensitivity: () => import('../src/report/study-parts.js'),
+  landings: () => import('../src/report/result-data-files.js'),
+};
+const loading = new Map<StudyTaskName, Promise<unknown>>();
+function load<K extends StudyTaskName>(task: K): ReturnType<(typeof code)[K]> {
+  if (!loading.has(task)) loading.set(task, code[task]());
+  return loading.get(task) as ReturnType<(typeof code)[K]>;
+}
 const analysisSet = import('../src/analysis/from-run.js');
-const files = (workerData as { preload?: StudyTaskName[] } | undefined)?.preload?.includes('landings') ? import('../src/report/result-data-files.js') : null;
+for (const task of (workerData as { preload?: StudyTaskName[] } | undefined)?.preload ?? []) void load(task).catch(() => {});
 
 /**
  * A fault that tests inject: STREWN_TEST_THREAD_FAULT=throw:TASK makes the task fail,
@@ -30,15 +40,15 @@ async function answer(task: StudyTask): Promise<StudyTaskReply> {
   const { landingSetFromRun } = await analysisSet;
   switch (task.task) {
     case 'analysis': {
-      const { studyAnalysis } = await study;
+      const { studyAnalysis } = await load('analysis');
       return { analysis: studyAnalysis(task.scenario, task.run, landingSetFromRun(task.run, task.scenario)) };
     }
     case 'sensitivity': {
-      const { studySpreadSensitivity } = await study;
+      const { studySpreadSensitivity } = await load('sensitivity');
       return { sensitivity: studySpreadSensitivity(task.scenario, task.run) };
     }
     case 'landings': {
-      const { landingFiles } = await (files ?? import('../src/report/result-data-files.js'));
+      const { landingFiles } = await load('landings');
       const slow = fault?.[1] === 'slow' && fault[2] === 'landings';
       for (const [name, content] of landingFiles(task.scenario, landingSetFromRun(task.run, task.scenario))) {
         writePieces(join(task.folder, name), name, content, slow);

@@ -127,9 +127,11 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
   let studyThreads: StudyThread[] = [];
   try {
     const range = shard ? shardRange(samples, shard) : undefined;
-    // The analysis, report and sheet code loads while the workers fly.
-    const files = shard ? null : import('./study-files.js');
-    files?.catch(() => {});
+    // The report code loads while the workers fly (the analysis code only where it runs: in
+    // this thread for --until-stable, else in the analysis thread).
+    const files = untilStableWanted ? import('./study-files.js') : null;
+    const threadedFiles = shard || untilStableWanted ? null : import('./study-files-threads.js');
+    for (const code of [files, threadedFiles]) code?.catch(() => {});
     if (untilStableWanted) {
       const { studyOutcome, writeOutcomeFiles } = await files!;
       const study = async (n: number) => {
@@ -186,7 +188,7 @@ async function runStudy(path: string, values: Record<string, unknown>, settings:
       }
       return 0;
     }
-    const { writeStudyFilesInThreads } = await files!;
+    const { writeStudyFilesInThreads } = await threadedFiles!;
     const summary = await writeStudyFilesInThreads(
       out,
       scenario,
