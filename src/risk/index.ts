@@ -43,7 +43,12 @@ export interface ModeImpacts {
 export interface RiskResult {
   settings: RiskSettings;
   surface: RiskSurface | null;
-  harm: ImpactHarm;
+  /**
+   * The risk weight of each landing (what the event's combined surface adds up). The other
+   * per-landing harm figures are used up inside `assessRisk` and not kept: at millions of
+   * landings they were the largest thing the analysis held while the files were written.
+   */
+  harm: Pick<ImpactHarm, 'weight'>;
   lines: RiskLine[];
   /** Level the standing distances are for: the individual criterion, or the smallest level. */
   standingLevel: number;
@@ -85,7 +90,7 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
   return {
     settings,
     surface,
-    harm,
+    harm: { weight: harm.weight },
     lines,
     standingLevel,
     standingLine: lines.find((l) => l.level === standingLevel) ?? riskLines(surface, [standingLevel], samples)[0],
@@ -104,21 +109,25 @@ function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[], byPar
   const names = byPart ? set.partNames! : set.modeNames;
   const groupOf = byPart ? set.part! : set.mode;
   return names.map((name, m) => {
-    const speed: number[] = [];
-    const energy: number[] = [];
-    const weight: number[] = [];
+    // Typed arrays sized by a first count: at millions of landings, growing number arrays and
+    // copying them for each quantile made most of the analysis's peak memory.
+    let count = 0;
+    for (let i = 0; i < set.east.length; i++) if (groupOf[i] === m) count++;
+    const speed = new Float64Array(count);
+    const energy = new Float64Array(count);
+    const w = new Float64Array(count);
     let harmful = 0;
-    for (let i = 0; i < set.east.length; i++) {
-      if (groupOf[i] !== m) continue;
-      speed.push(set.impactSpeed ? set.impactSpeed[i] : NaN);
-      energy.push(set.impactEnergy ? set.impactEnergy[i] : NaN);
-      weight.push(set.weight[i]);
-      harmful += set.weight[i] * harm.chance[i];
-    }
-    const w = Float64Array.from(weight);
     let total = 0;
-    for (const x of weight) total += x;
-    const q = (values: number[], p: number) => (values.length === 0 || values.some((v) => !Number.isFinite(v)) ? NaN : weightedQuantile(Float64Array.from(values), w, p));
+    for (let i = 0, j = 0; i < set.east.length; i++) {
+      if (groupOf[i] !== m) continue;
+      speed[j] = set.impactSpeed ? set.impactSpeed[i] : NaN;
+      energy[j] = set.impactEnergy ? set.impactEnergy[i] : NaN;
+      w[j] = set.weight[i];
+      harmful += set.weight[i] * harm.chance[i];
+      total += set.weight[i];
+      j++;
+    }
+    const q = (values: Float64Array, p: number) => (values.length === 0 || values.some((v) => !Number.isFinite(v)) ? NaN : weightedQuantile(values, w, p));
     return {
       name,
       impactSpeed_m_s: { p50: q(speed, 0.5), p95: q(speed, 0.95) },
