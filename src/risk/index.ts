@@ -108,30 +108,34 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
 function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[], byPart = false): ModeImpacts[] {
   const names = byPart ? set.partNames! : set.modeNames;
   const groupOf = byPart ? set.part! : set.mode;
+  const n = set.east.length;
   return names.map((name, m) => {
-    // Typed arrays sized by a first count: at millions of landings, growing number arrays and
-    // copying them for each quantile made most of the analysis's peak memory.
+    // The quantiles read the landing set's own columns through a list of the group's indices (none
+    // when the group is every landing): at millions of landings, copies of each group's figures
+    // made most of the analysis's peak memory.
     let count = 0;
-    for (let i = 0; i < set.east.length; i++) if (groupOf[i] === m) count++;
-    const speed = new Float64Array(count);
-    const energy = new Float64Array(count);
-    const w = new Float64Array(count);
+    for (let i = 0; i < n; i++) if (groupOf[i] === m) count++;
+    let members: Uint32Array | null = null;
+    if (count < n) {
+      members = new Uint32Array(count);
+      for (let i = 0, j = 0; i < n; i++) if (groupOf[i] === m) members[j++] = i;
+    }
     let harmful = 0;
     let total = 0;
-    for (let i = 0, j = 0; i < set.east.length; i++) {
-      if (groupOf[i] !== m) continue;
-      speed[j] = set.impactSpeed ? set.impactSpeed[i] : NaN;
-      energy[j] = set.impactEnergy ? set.impactEnergy[i] : NaN;
-      w[j] = set.weight[i];
+    for (let j = 0; j < count; j++) {
+      const i = members ? members[j] : j;
       harmful += set.weight[i] * harm.chance[i];
       total += set.weight[i];
-      j++;
     }
-    const q = (values: Float64Array, p: number) => (values.length === 0 || values.some((v) => !Number.isFinite(v)) ? NaN : weightedQuantile(values, w, p));
+    const q = (values: Float64Array | undefined, p: number) => {
+      if (count === 0 || values === undefined) return NaN;
+      for (let j = 0; j < count; j++) if (!Number.isFinite(values[members ? members[j] : j])) return NaN;
+      return weightedQuantile(values, set.weight, p, members);
+    };
     return {
       name,
-      impactSpeed_m_s: { p50: q(speed, 0.5), p95: q(speed, 0.95) },
-      impactEnergy_J: { p50: q(energy, 0.5), p95: q(energy, 0.95) },
+      impactSpeed_m_s: { p50: q(set.impactSpeed, 0.5), p95: q(set.impactSpeed, 0.95) },
+      impactEnergy_J: { p50: q(set.impactEnergy, 0.5), p95: q(set.impactEnergy, 0.95) },
       harmfulShare: total > 0 ? harmful / total : 0,
       expectedCasualties: areas.reduce((s, a) => s + ((byPart ? a.byPart : a.byMode)[m] ?? 0), 0),
     };
