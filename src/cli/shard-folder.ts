@@ -61,13 +61,19 @@ export function writeShardFolder(
   study: StudyIdentity & { scenario: Scenario; warnings: Issue[]; shard: ShardSpec },
 ): ShardManifest {
   const columns: ColumnEntry[] = [];
+  // The file's pieces in order: each column's own bytes (a view, not a copy: a shard of millions
+  // of samples is not held twice) and the zero bytes that align the next column.
+  const pieces: Uint8Array[] = [];
   let offset = 0;
   for (const [name, array] of resultColumns(chunk)) {
     columns.push({ name, type: columnTypeName(array), byteOffset: offset, byteLength: array.byteLength });
-    offset = align8(offset + array.byteLength);
+    pieces.push(new Uint8Array(array.buffer, array.byteOffset, array.byteLength));
+    const next = align8(offset + array.byteLength);
+    if (next > offset + array.byteLength) pieces.push(new Uint8Array(next - offset - array.byteLength));
+    offset = next;
   }
-  const bytes = new Uint8Array(offset);
-  resultColumns(chunk).forEach(([, array], k) => bytes.set(new Uint8Array(array.buffer, array.byteOffset, array.byteLength), columns[k].byteOffset));
+  const hash = createHash('sha256');
+  for (const piece of pieces) hash.update(piece);
   const manifest: ShardManifest = {
     format: FORMAT,
     formatVersion: FORMAT_VERSION,
@@ -81,10 +87,10 @@ export function writeShardFolder(
     count: chunk.count,
     byteOrder: endianness(),
     columns,
-    columnsSha256: createHash('sha256').update(bytes).digest('hex'),
+    columnsSha256: hash.digest('hex'),
     warnings: study.warnings,
   };
-  out.write(SHARD_COLUMNS, bytes);
+  out.write(SHARD_COLUMNS, pieces);
   out.write('scenario.json', JSON.stringify(study.scenario, null, 2) + '\n');
   out.write(SHARD_MANIFEST, JSON.stringify(manifest, null, 2) + '\n');
   return manifest;
