@@ -34,7 +34,8 @@ export function landingSetFromRun(run: RunResult, scenario: Scenario): LandingSe
       modeNames: run.plan.names,
       modeProbability: Array.from(run.plan.probability),
       modeCarriesParachute: modesWithParachute(run, scenario),
-      sample: Uint32Array.from({ length: run.count }, (_, i) => run.start + i),
+      // Sample numbers are the positions themselves for a whole run (absent means 0, 1, 2, …).
+      ...(run.start === 0 ? {} : { sample: Uint32Array.from({ length: run.count }, (_, i) => run.start + i) }),
       apogee: run.apogee,
       flightTime: run.flightTime,
       impactSpeed: run.impactSpeed,

@@ -64,8 +64,8 @@ export function writeKeepOutGeoJSON(result: AnalysisResult): string {
   return JSON.stringify({ type: 'FeatureCollection', features: [feature] });
 }
 
-/** Features per chunk yielded by `landingsGeoJSONChunks`. */
-const CHUNK = 5_000;
+/** Features per chunk yielded by `landingsGeoJSONChunks` (small, so a chunk's strings die young; see landings-csv.ts). */
+const CHUNK = 1_000;
 
 /**
  * landings.geojson in pieces, so a caller can stream a million points to a file without holding one

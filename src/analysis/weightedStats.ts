@@ -4,6 +4,7 @@
  * @example
  *   effectiveSampleSize(new Float64Array([1, 1, 1, 1]))      // 4
  *   weightedQuantile(values, weights, 0.25)                  // lower quartile
+ *   weightedQuantile(values, weights, 0.5, Uint32Array.of(0, 2, 5)) // median of entries 0, 2, 5
  */
 
 /**
@@ -45,13 +46,15 @@ const SMALL = 512;
  * Selection by repeated histograms: each pass keeps only the bin where the cumulative weight
  * crosses the target, so a million points take two or three linear passes.
  */
-export function weightedQuantile(values: Float64Array, weights: Float64Array, q: number): number {
-  const count = values.length;
+export function weightedQuantile(values: Float64Array, weights: Float64Array, q: number, subset: Uint32Array | null = null): number {
+  // `subset`: the quantile of only these entries (ascending indices), with no copy of their values:
+  // the same result as of the values and weights gathered in that order.
+  const count = subset ? subset.length : values.length;
   if (count === 0) return NaN;
   let total = 0;
-  for (let i = 0; i < count; i++) total += weights[i];
+  for (let m = 0; m < count; m++) total += weights[subset ? subset[m] : m];
   const target = q * total;
-  let members: Uint32Array | null = null;
+  let members: Uint32Array | null = subset;
   let memberCount = count;
   let below = 0;
   const binWeight = new Float64Array(BINS);

@@ -1,5 +1,4 @@
 import { planModes } from '../dispersion/modes.js';
-import { placeColumns } from '../dispersion/columns.js';
 import { allocateChunk } from '../dispersion/runner.js';
 import { piecesPerSample } from '../dispersion/breakup.js';
 import { orderShards, ShardSetError, type ShardPiece } from '../dispersion/shards.js';
@@ -8,7 +7,7 @@ import { parseCommandArgs } from './args.js';
 import { UsageError } from './errors.js';
 import { interruptSignal } from './interrupt.js';
 import { OutputFolder } from './output-folder.js';
-import { readShardColumns, readShardManifest, readShardScenario, shardFoldersOf, type ShardManifest } from './shard-folder.js';
+import { readShardInto, readShardManifest, readShardScenario, shardFoldersOf, type ShardManifest } from './shard-folder.js';
 import { honourInterrupt, writeStudyFiles } from './study-files.js';
 
 export const MERGE_HELP = `Usage: strewn merge <shard folder>… --out DIR [options]
@@ -66,11 +65,12 @@ export async function mergeCommand(args: string[]): Promise<number> {
   let out: OutputFolder | undefined;
   try {
     out = OutputFolder.prepare(outDir, { force: values.force === true, inputs: ordered.map(({ value }) => value.folder) });
-    // One shard's columns at a time are read and copied into the study's columns.
+    // Each shard's columns are read straight into their place in the study's columns: no shard
+    // is held a second time (readShardInto).
     const all = allocateChunk(0, first.samples, piecesPerSample(scenario));
     for (const { value } of ordered) {
       await honourInterrupt(interrupt.signal);
-      placeColumns(all, readShardColumns(value.folder, value.manifest));
+      readShardInto(all, value.folder, value.manifest);
     }
     const run = { ...all, plan: planModes(scenario.failures, first.samples), seed: first.seed };
     const summary = await writeStudyFiles(out, scenario, first.scenarioHash, run, first.warnings, { signal: interrupt.signal });

@@ -61,13 +61,19 @@ export function writeShardFolder(
   study: StudyIdentity & { scenario: Scenario; warnings: Issue[]; shard: ShardSpec },
 ): ShardManifest {
   const columns: ColumnEntry[] = [];
+  // The file's pieces in order: each column's own bytes (a view, not a copy: a shard of millions
+  // of samples is not held twice) and the zero bytes that align the next column.
+  const pieces: Uint8Array[] = [];
   let offset = 0;
   for (const [name, array] of resultColumns(chunk)) {
     columns.push({ name, type: columnTypeName(array), byteOffset: offset, byteLength: array.byteLength });
-    offset = align8(offset + array.byteLength);
+    pieces.push(new Uint8Array(array.buffer, array.byteOffset, array.byteLength));
+    const next = align8(offset + array.byteLength);
+    if (next > offset + array.byteLength) pieces.push(new Uint8Array(next - offset - array.byteLength));
+    offset = next;
   }
-  const bytes = new Uint8Array(offset);
-  resultColumns(chunk).forEach(([, array], k) => bytes.set(new Uint8Array(array.buffer, array.byteOffset, array.byteLength), columns[k].byteOffset));
+  const hash = createHash('sha256');
+  for (const piece of pieces) hash.update(piece);
   const manifest: ShardManifest = {
     format: FORMAT,
     formatVersion: FORMAT_VERSION,
@@ -81,10 +87,10 @@ export function writeShardFolder(
     count: chunk.count,
     byteOrder: endianness(),
     columns,
-    columnsSha256: createHash('sha256').update(bytes).digest('hex'),
+    columnsSha256: hash.digest('hex'),
     warnings: study.warnings,
   };
-  out.write(SHARD_COLUMNS, bytes);
+  out.write(SHARD_COLUMNS, pieces);
   out.write('scenario.json', JSON.stringify(study.scenario, null, 2) + '\n');
   out.write(SHARD_MANIFEST, JSON.stringify(manifest, null, 2) + '\n');
   return manifest;
@@ -140,6 +146,58 @@ export function readShardScenario(folder: string, manifest: ShardManifest): Scen
   }
   if (hashScenario(scenario) !== manifest.scenarioHash) throw new UsageError(`merge: shard '${folder}': scenario.json does not match the scenario hash in ${SHARD_MANIFEST} (was it edited?)`);
   return scenario;
+}
+
+/**
+ * Reads a shard's columns straight into the study's columns (`whole`, samples from `whole.start`),
+ * hashing the file as it goes, so a merge holds no second copy of a shard: each column's bytes go
+ * from the file into their place in one read. Throws (exit 2) if the file's size or checksum is
+ * wrong; `whole` is then partly overwritten, and the merge stops.
+ */
+export function readShardInto(whole: ChunkResult, folder: string, manifest: ShardManifest): void {
+  const file = join(folder, SHARD_COLUMNS);
+  const bad = (what: string) => new UsageError(`merge: shard '${folder}': ${SHARD_COLUMNS} ${what}`);
+  if (!existsSync(file)) throw bad('is missing');
+  const last = manifest.columns[manifest.columns.length - 1];
+  const size = last ? align8(last.byteOffset + last.byteLength) : 0;
+  const offset = manifest.first - whole.start;
+  if (offset < 0 || offset + manifest.count > whole.count) throw new Error(`internal error: shard samples ${manifest.first}+${manifest.count} fall outside ${whole.start}+${whole.count}`);
+  const target = whole as unknown as Record<string, Column>;
+  const hash = createHash('sha256');
+  const fd = openSync(file, 'r');
+  try {
+    if (fstatSync(fd).size !== size) throw bad(`has ${fstatSync(fd).size} bytes; the manifest expects ${size}`);
+    let at = 0;
+    /** Reads file bytes [at, at + into.length) into `into` and hashes them. */
+    const readFully = (into: Uint8Array) => {
+      for (let done = 0; done < into.length; ) {
+        const got = readSync(fd, into, done, Math.min(1 << 26, into.length - done), at + done);
+        if (got <= 0) throw bad('ended early');
+        done += got;
+      }
+      hash.update(into);
+      at += into.length;
+    };
+    const gap = (to: number) => {
+      if (to > at) readFully(new Uint8Array(to - at));
+    };
+    for (const c of manifest.columns) {
+      const Type = COLUMN_TYPES[c.type];
+      if (c.byteLength % (manifest.count * Type.BYTES_PER_ELEMENT) !== 0) throw bad(`column ${c.name} has ${c.byteLength} bytes for ${manifest.count} samples`);
+      const into = target[c.name];
+      const stride = c.byteLength / (manifest.count * Type.BYTES_PER_ELEMENT);
+      if (!into || !ArrayBuffer.isView(into) || into.constructor !== Type || into.length !== whole.count * stride) {
+        throw new Error(`internal error: result column '${c.name}' does not match the study's columns`);
+      }
+      if (c.byteOffset < at) throw bad(`column ${c.name} overlaps the one before it`);
+      gap(c.byteOffset);
+      readFully(new Uint8Array(into.buffer, into.byteOffset + offset * stride * Type.BYTES_PER_ELEMENT, c.byteLength));
+    }
+    gap(size);
+  } finally {
+    closeSync(fd);
+  }
+  if (hash.digest('hex') !== manifest.columnsSha256) throw bad('does not match its checksum in the manifest (damaged or edited)');
 }
 
 /**

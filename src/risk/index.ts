@@ -43,7 +43,12 @@ export interface ModeImpacts {
 export interface RiskResult {
   settings: RiskSettings;
   surface: RiskSurface | null;
-  harm: ImpactHarm;
+  /**
+   * The risk weight of each landing (what the event's combined surface adds up). The other
+   * per-landing harm figures are used up inside `assessRisk` and not kept: at millions of
+   * landings they were the largest thing the analysis held while the files were written.
+   */
+  harm: Pick<ImpactHarm, 'weight'>;
   lines: RiskLine[];
   /** Level the standing distances are for: the individual criterion, or the smallest level. */
   standingLevel: number;
@@ -85,7 +90,7 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
   return {
     settings,
     surface,
-    harm,
+    harm: { weight: harm.weight },
     lines,
     standingLevel,
     standingLine: lines.find((l) => l.level === standingLevel) ?? riskLines(surface, [standingLevel], samples)[0],
@@ -103,26 +108,34 @@ export function assessRisk(set: LandingSet, site: Site, settings: RiskSettings, 
 function modeImpacts(set: LandingSet, harm: ImpactHarm, areas: AreaRisk[], byPart = false): ModeImpacts[] {
   const names = byPart ? set.partNames! : set.modeNames;
   const groupOf = byPart ? set.part! : set.mode;
+  const n = set.east.length;
   return names.map((name, m) => {
-    const speed: number[] = [];
-    const energy: number[] = [];
-    const weight: number[] = [];
-    let harmful = 0;
-    for (let i = 0; i < set.east.length; i++) {
-      if (groupOf[i] !== m) continue;
-      speed.push(set.impactSpeed ? set.impactSpeed[i] : NaN);
-      energy.push(set.impactEnergy ? set.impactEnergy[i] : NaN);
-      weight.push(set.weight[i]);
-      harmful += set.weight[i] * harm.chance[i];
+    // The quantiles read the landing set's own columns through a list of the group's indices (none
+    // when the group is every landing): at millions of landings, copies of each group's figures
+    // made most of the analysis's peak memory.
+    let count = 0;
+    for (let i = 0; i < n; i++) if (groupOf[i] === m) count++;
+    let members: Uint32Array | null = null;
+    if (count < n) {
+      members = new Uint32Array(count);
+      for (let i = 0, j = 0; i < n; i++) if (groupOf[i] === m) members[j++] = i;
     }
-    const w = Float64Array.from(weight);
+    let harmful = 0;
     let total = 0;
-    for (const x of weight) total += x;
-    const q = (values: number[], p: number) => (values.length === 0 || values.some((v) => !Number.isFinite(v)) ? NaN : weightedQuantile(Float64Array.from(values), w, p));
+    for (let j = 0; j < count; j++) {
+      const i = members ? members[j] : j;
+      harmful += set.weight[i] * harm.chance[i];
+      total += set.weight[i];
+    }
+    const q = (values: Float64Array | undefined, p: number) => {
+      if (count === 0 || values === undefined) return NaN;
+      for (let j = 0; j < count; j++) if (!Number.isFinite(values[members ? members[j] : j])) return NaN;
+      return weightedQuantile(values, set.weight, p, members);
+    };
     return {
       name,
-      impactSpeed_m_s: { p50: q(speed, 0.5), p95: q(speed, 0.95) },
-      impactEnergy_J: { p50: q(energy, 0.5), p95: q(energy, 0.95) },
+      impactSpeed_m_s: { p50: q(set.impactSpeed, 0.5), p95: q(set.impactSpeed, 0.95) },
+      impactEnergy_J: { p50: q(set.impactEnergy, 0.5), p95: q(set.impactEnergy, 0.95) },
       harmfulShare: total > 0 ? harmful / total : 0,
       expectedCasualties: areas.reduce((s, a) => s + ((byPart ? a.byPart : a.byMode)[m] ?? 0), 0),
     };

@@ -68,17 +68,21 @@ export function riskSurface(
   let harmful = 0;
   for (let i = 0; i < riskWeight.length; i++) if (riskWeight[i] > 0) harmful++;
   if (harmful === 0) return null;
-  const e = new Float64Array(harmful);
-  const n = new Float64Array(harmful);
-  const w = new Float64Array(harmful);
+  // When every landing can harm (the common case) its own columns are used, not copies of them.
+  const all = harmful === riskWeight.length;
+  const e = all ? east : new Float64Array(harmful);
+  const n = all ? north : new Float64Array(harmful);
+  const w = all ? riskWeight : new Float64Array(harmful);
   const w2 = new Float64Array(harmful);
   let total = 0;
   let totalSquares = 0;
   for (let i = 0, j = 0; i < riskWeight.length; i++) {
     if (!(riskWeight[i] > 0)) continue;
-    e[j] = east[i];
-    n[j] = north[i];
-    w[j] = riskWeight[i];
+    if (!all) {
+      e[j] = east[i];
+      n[j] = north[i];
+      w[j] = riskWeight[i];
+    }
     w2[j] = riskWeight[i] * riskWeight[i];
     total += w[j];
     totalSquares += w2[j];

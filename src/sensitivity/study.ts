@@ -51,8 +51,10 @@ export function studySensitivity(scenario: Scenario, run: RunResult): StudySensi
   }
   const distance = new Float64Array(n);
   for (let i = 0; i < n; i++) distance[i] = weights[i] > 0 ? Math.hypot(run.east[i], run.north[i]) : 0;
-  const east = run.east.map((v, i) => (weights[i] > 0 ? v : 0));
-  const north = run.north.map((v, i) => (weights[i] > 0 ? v : 0));
+  // The run's own columns, not copies: every sum below skips the samples of weight 0 (failed
+  // samples, whose positions may not be finite).
+  const east = run.east;
+  const north = run.north;
   const ve = weightedVariance(east, weights);
   const vn = weightedVariance(north, weights);
   const scatterIndex = (classOf: (i: number) => number, m: number) => {
@@ -80,10 +82,10 @@ function round3(x: number): number {
 
 function weightedVariance(y: Float64Array, w: Float64Array): number {
   let sw = 0, m = 0;
-  for (let i = 0; i < y.length; i++) { sw += w[i]; m += w[i] * y[i]; }
+  for (let i = 0; i < y.length; i++) if (w[i] > 0) { sw += w[i]; m += w[i] * y[i]; }
   if (!(sw > 0)) return 0;
   m /= sw;
   let v = 0;
-  for (let i = 0; i < y.length; i++) v += w[i] * (y[i] - m) ** 2;
+  for (let i = 0; i < y.length; i++) if (w[i] > 0) v += w[i] * (y[i] - m) ** 2;
   return v / sw;
 }

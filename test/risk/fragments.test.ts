@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { assessRisk } from '../../src/risk/index.js';
 import { riskAt } from '../../src/risk/individual.js';
 import { riskSettings } from '../../src/risk/settings.js';
+import { impactHarm, landingCasualtyArea } from '../../src/risk/impacts.js';
 import { casualtyArea } from '../../src/risk/casualty-area.js';
 import { createLocalFrame } from '../../src/analysis/geodesy.js';
 import { assessAreas } from '../../src/analysis/areas.js';
@@ -66,9 +67,11 @@ describe('fragment impacts over a disc (closed form: IR = k A_c P / S, E = N k A
   const risk = assessRisk(set, site, settings);
 
   it('casualty area of each piece from its own radius (π (R_p + R_o)² for a vertical impact, worked by hand)', () => {
-    expect(risk.harm.casualtyArea[0]).toBeCloseTo(Math.PI * 0.32 * 0.32, 12);
-    expect(risk.harm.casualtyArea[heavy]).toBeCloseTo(Math.PI * 0.34 * 0.34, 12);
-    expect(risk.harm.chance[heavy]).toBe(0);
+    expect(landingCasualtyArea(set, settings, 0)).toBeCloseTo(Math.PI * 0.32 * 0.32, 12);
+    expect(landingCasualtyArea(set, settings, heavy)).toBeCloseTo(Math.PI * 0.34 * 0.34, 12);
+    const harm = impactHarm(set, settings);
+    expect(harm.exposure[0]).toBeCloseTo(Math.PI * 0.32 * 0.32, 12);
+    expect(harm.chance[heavy]).toBe(0);
   });
 
   it('individual risk well inside the disc is heavy × A_c / S within 5 %', () => {
