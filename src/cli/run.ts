@@ -17,6 +17,7 @@ import { honourInterrupt } from './study-files-light.js';
 import { SheetThread } from './sheet-thread.js';
 import { PhaseTimer } from './phase-timer.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
+import type { EarlyWorkers } from './early-workers.js';
 
 export const RUN_HELP = `Usage: strewn run <scenario.json> [options]
 
@@ -54,7 +55,8 @@ Options:
 Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 
-export async function runCommand(args: string[]): Promise<number> {
+/** `early`: engine threads started before this module was loaded (cli/early-workers.ts); taken first. */
+export async function runCommand(args: string[], early?: EarlyWorkers): Promise<number> {
   const timer = new PhaseTimer();
   timer.lap('start and load');
   const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
@@ -76,7 +78,7 @@ export async function runCommand(args: string[]): Promise<number> {
   displayChoices(values);
 
   // The workers load their code while this thread reads the scenario and flies the nominal flight.
-  const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
+  const prestarted = early ?? prestartWorkers(nodeWorkerFactory(), workers);
   try {
     return await runStudy(path, values, { maxSamples, samplesOption, workers, seedOption, quiet, json, timer, createWorker: prestarted.createWorker, untilStableWanted, stableCap });
   } finally {
