@@ -7,15 +7,9 @@
  * and reused as the next step's first stage (FSAL).
  */
 
-export interface OdeSystem {
-  /**
-   * Writes dy/dt at (time[0], y) into dy. Must not keep references to its arguments. The time
-   * comes in a one-element array rather than as a number: a number that is not a small integer,
-   * passed to a function the compiler does not inline, is boxed on the heap at every call, and
-   * this is called seven times a step.
-   */
-  derivative(time: Float64Array, y: Float64Array, dy: Float64Array): void;
-}
+import type { OdeSystem, Stepper } from './stepper.js';
+
+export type { OdeSystem } from './stepper.js';
 
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
 const A21 = 1 / 5;
@@ -28,7 +22,7 @@ const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E
 const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072,
   D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
 
-export class Dopri5 {
+export class Dopri5 implements Stepper {
   readonly n: number;
   /** State at the start of the current step. */
   readonly y: Float64Array;
@@ -58,7 +52,7 @@ export class Dopri5 {
   private h = 0;
   private fsalValid = false;
   /** Step-size controller memory: the last accepted error norm, and whether the last try failed. */
-  private errOld = 1e-4;
+  private logErrOld = LOG_ERR_START;
   private rejected = false;
 
   constructor(n: number) {
@@ -77,7 +71,7 @@ export class Dopri5 {
   reset(y: ArrayLike<number>): void {
     for (let i = 0; i < this.n; i++) this.y[i] = y[i];
     this.fsalValid = false;
-    this.errOld = 1e-4;
+    this.logErrOld = LOG_ERR_START;
     this.rejected = false;
   }
 
@@ -219,11 +213,12 @@ export class Dopri5 {
    */
   nextAfterAccept(h: number, err: number): number {
     const e = err > 1e-10 ? err : 1e-10;
-    let fac = Math.exp(PI_EXPONENT * Math.log(e) - PI_BETA * Math.log(this.errOld)) / SAFETY;
+    let fac = Math.exp(PI_EXPONENT * Math.log(e) - PI_BETA * this.logErrOld) / SAFETY;
     fac = fac < 0.1 ? 0.1 : fac > 5 ? 5 : fac;
     let next = h / fac;
     if (this.rejected && next > h) next = h;
-    this.errOld = err > 1e-4 ? err : 1e-4;
+    // Its logarithm is what the next step needs (one logarithm a step saved).
+    this.logErrOld = Math.log(err > 1e-4 ? err : 1e-4);
     this.rejected = false;
     return next;
   }
@@ -238,5 +233,6 @@ export class Dopri5 {
 }
 
 const PI_BETA = 0.04;
+const LOG_ERR_START = Math.log(1e-4);
 const PI_EXPONENT = 0.2 - 0.75 * PI_BETA;
 const SAFETY = 0.9;

@@ -26,6 +26,8 @@ export interface Air {
   densityAt(height: number): number;
   /** Speed of sound (m/s) at a height above the pad (m). */
   speedOfSoundAt(height: number): number;
+  /** d(density)/d(height) (kg/m⁴) of what `densityAt` returns, for the Jacobian of the stiff stepper. */
+  densitySlopeAt(height: number): number;
 }
 
 export class AirModel implements Air {
@@ -121,6 +123,11 @@ export class AirModel implements Air {
   speedOfSoundAt(height: number): number {
     return interpolate(this.sound, height, this.last);
   }
+
+  /** Slope of `densityAt` (kg/m⁴): that of the table's linear piece, 0 where it is held. */
+  densitySlopeAt(height: number): number {
+    return slope(this.density, height, this.last);
+  }
 }
 
 function interpolate(table: Float64Array, height: number, last: number): number {
@@ -130,4 +137,12 @@ function interpolate(table: Float64Array, height: number, last: number): number 
   const i = x | 0;
   const f = x - i;
   return table[i] + f * (table[i + 1] - table[i]);
+}
+
+/** Derivative of `interpolate` in height (the right-hand piece at a node). */
+function slope(table: Float64Array, height: number, last: number): number {
+  const x = height * INV_STEP + BELOW_NODES;
+  if (!(x > 0) || x >= last) return 0;
+  const i = x | 0;
+  return (table[i + 1] - table[i]) * INV_STEP;
 }

@@ -14,6 +14,8 @@ import { G0 } from './constants.js';
 export interface Earth {
   /** Magnitude of gravity (m/s²) at a height above the pad (m), pointing straight down. */
   gravityAt(height: number): number;
+  /** d(gravity)/d(height) (1/s²), for the Jacobian of the stiff stepper. */
+  gravitySlopeAt(height: number): number;
   /** Earth's rotation in the local frame, rad/s: north and up components (east is zero). */
   readonly omegaNorth: number;
   readonly omegaUp: number;
@@ -90,6 +92,10 @@ export class EarthModel implements Earth {
   gravityAt(height: number): number {
     return this.c0 + height * (this.c1 + height * this.c2);
   }
+
+  gravitySlopeAt(height: number): number {
+    return this.c1 + 2 * height * this.c2;
+  }
 }
 
 /**
@@ -97,7 +103,7 @@ export class EarthModel implements Earth {
  * compare with them use it).
  */
 export function uniformEarth(g: number = G0): Earth {
-  return { gravityAt: () => g, omegaNorth: 0, omegaUp: 0 };
+  return { gravityAt: () => g, gravitySlopeAt: () => 0, omegaNorth: 0, omegaUp: 0 };
 }
 
 /**

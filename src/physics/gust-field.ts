@@ -93,6 +93,27 @@ export class GustField {
     out[2] += s * (b0 * v[i] + b1 * v[i + 1] + b2 * v[i + 2] + b3 * v[i + 3]);
   }
 
+  /** Adds d/d(height) of the gust at `height` (1/s) to out[0..2]; 0 where the field is held. */
+  addSlopeAt(height: number, out: Float64Array): void {
+    if (this.sigmaW <= 0) return;
+    const x = height * INV_STEP;
+    if (!(x > 0) || x > this.nodeLast - 3) return;
+    const i = x | 0;
+    if (i + 4 > this.generated) this.generate(i + 4);
+    const f = x - i;
+    const g = 1 - f;
+    // Derivatives of the B-spline weights in f, times df/dz = 1 / STEP.
+    const d0 = -0.5 * g * g;
+    const d1 = 1.5 * f * f - 2 * f;
+    const d2 = -1.5 * f * f + f + 0.5;
+    const d3 = 0.5 * f * f;
+    const s = this.sigmaW * INV_STEP;
+    const e = this.east, n = this.north, v = this.vert;
+    out[0] += s * (d0 * e[i] + d1 * e[i + 1] + d2 * e[i + 2] + d3 * e[i + 3]);
+    out[1] += s * (d0 * n[i] + d1 * n[i + 1] + d2 * n[i + 2] + d3 * n[i + 3]);
+    out[2] += s * (d0 * v[i] + d1 * v[i + 1] + d2 * v[i + 2] + d3 * v[i + 3]);
+  }
+
   /**
    * Generates nodes up to (not including) index `upto`: unit Gauss–Markov processes along height,
    * stored multiplied by the local σ ratio and spline gain.

@@ -96,6 +96,28 @@ export class MeanWind {
     out[0] = s * (e * this.cos + n * this.sin);
     out[1] = s * (n * this.cos - e * this.sin);
   }
+
+  /**
+   * Writes d/d(height) of what `at` gives (1/s) into out[0], out[1]: the slope of the table's
+   * linear piece in sqrt(height) times d sqrt(height)/d height; 0 where the table is held.
+   */
+  slopeAt(height: number, out: Float64Array): void {
+    const x = height > 0 ? Math.sqrt(height) * INV_ROOT_STEP : 0;
+    if (!(x > 0) || x >= this.last) {
+      out[0] = 0;
+      out[1] = 0;
+      return;
+    }
+    const te = this.tableEast, tn = this.tableNorth;
+    const i = x | 0;
+    // dx/dz = 1 / (2 ROOT_STEP sqrt(z)) = INV_ROOT_STEP² / (2x).
+    const d = (INV_ROOT_STEP * INV_ROOT_STEP) / (2 * x);
+    const e = (te[i + 1] - te[i]) * d;
+    const n = (tn[i + 1] - tn[i]) * d;
+    const s = this.scale;
+    out[0] = s * (e * this.cos + n * this.sin);
+    out[1] = s * (n * this.cos - e * this.sin);
+  }
 }
 
 const scratch = new Float64Array(2);

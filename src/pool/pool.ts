@@ -3,7 +3,7 @@ import { planModes } from '../dispersion/modes.js';
 import type { RunResult } from '../dispersion/results.js';
 import { allocateChunk, type ChunkResult } from '../dispersion/runner.js';
 import { piecesPerSample } from '../dispersion/breakup.js';
-import { placeColumns, resultColumns } from '../dispersion/columns.js';
+import { COLUMN_TYPES, columnTypeName, placeColumns, resultColumns } from '../dispersion/columns.js';
 import { ChunkFailedError, cancelledError } from './errors.js';
 import type { EngineJob, PoolWorker, PoolWorkerFactory } from './protocol.js';
 
@@ -29,6 +29,12 @@ export interface PoolOptions {
    * depends only on the scenario, seed, total sample count and its index.
    */
   range?: readonly [number, number];
+  /**
+   * Keep the run's columns in shared memory (SharedArrayBuffer), so threads that analyse and write
+   * the results read them without a copy. Node only: a page that is not cross-origin isolated has
+   * no SharedArrayBuffer.
+   */
+  sharedColumns?: boolean;
 }
 
 export async function runInPool(job: EngineJob, options: PoolOptions): Promise<RunResult> {
@@ -47,6 +53,7 @@ export async function runInPool(job: EngineJob, options: PoolOptions): Promise<R
   // Each chunk is copied into the run's columns as it arrives and then dropped, so a large run
   // never holds its samples twice.
   const all = allocateChunk(range[0], range[1], piecesPerSample(job.scenario));
+  if (options.sharedColumns) shareColumns(all);
   const filled = new Uint8Array(range[1]);
   const live = new Set<PoolWorker>();
   const started = Date.now();
@@ -147,5 +154,14 @@ function checkChunk(chunk: ChunkResult, start: number, count: number): void {
   // A sample's own columns hold one entry per sample; a breakup's piece columns a whole number per sample.
   if (chunk.start !== start || chunk.count !== count || arrays.length === 0 || arrays[0].length !== count || arrays.some((a) => a.length % count !== 0)) {
     throw new Error(`worker answered samples ${chunk.start}+${chunk.count} (arrays of ${arrays.map((a) => a.length).join('/')}) for ${start}+${count}`);
+  }
+}
+
+/** Moves every (still empty) column of `chunk` into shared memory of the same type and length. */
+function shareColumns(chunk: ChunkResult): void {
+  const target = chunk as unknown as Record<string, unknown>;
+  for (const [name, column] of resultColumns(chunk)) {
+    const Type = COLUMN_TYPES[columnTypeName(column)] as new (buffer: ArrayBufferLike) => typeof column;
+    target[name] = new Type(new SharedArrayBuffer(column.byteLength));
   }
 }

@@ -23,6 +23,24 @@ export interface ResultFileOptions {
   /** Units and paper of the sheet (default: the scenario's run.units / run.paper, else metric and A4). */
   units?: UnitSystem;
   paper?: Paper;
+  /** Leave out the landings files (`landingFiles`), which the command line writes in another thread. */
+  withoutLandings?: boolean;
+}
+
+/** The names of the files `landingFiles` gives. */
+export const LANDING_FILE_NAMES = ['landings.csv', 'landings.geojson', 'landings.fgb'] as const;
+
+/**
+ * The files of every landing (landings.csv, landings.geojson, landings.fgb), streamed in pieces:
+ * they depend on the landings and the scenario alone, not on the analysis, so they can be
+ * formatted while the analysis runs.
+ */
+export function landingFiles(scenario: Scenario, set: LandingSet): [string, FileContent][] {
+  return [
+    ['landings.csv', landingsCsvChunks(set, createLocalFrame(scenario.site.pad))],
+    ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad, landingSubset(set))],
+    ['landings.fgb', landingsFlatGeobufChunks(set, scenario.site.pad, `Strewn landings: ${scenario.name}`)],
+  ];
 }
 
 /** What the review sheet (map.svg, sheet.pdf) is drawn from: plain data, so it can go to another thread. */
@@ -47,15 +65,15 @@ export function resultDataFiles(
   summary: RunSummary,
   options: ResultFileOptions = {},
 ): { files: [string, FileContent][]; sheet: SheetJob } {
-  const frame = createLocalFrame(scenario.site.pad);
   const summaryText = JSON.stringify(summary, null, 2) + '\n';
   const scenarioText = JSON.stringify(scenario, null, 2) + '\n';
   const reviewText = JSON.stringify(reviewFacts(analysis, options.computedAt ?? runDate()), null, 2) + '\n';
+  // The order of old: landings.csv, summary.json, landings.geojson, landings.fgb, ...
+  const landings = options.withoutLandings ? [] : landingFiles(scenario, set);
   const files: [string, FileContent][] = [
-    ['landings.csv', landingsCsvChunks(set, frame)],
+    ...landings.slice(0, 1),
     ['summary.json', summaryText],
-    ['landings.geojson', landingsGeoJSONChunks(set, scenario.site.pad, landingSubset(set))],
-    ['landings.fgb', landingsFlatGeobufChunks(set, scenario.site.pad, `Strewn landings: ${scenario.name}`)],
+    ...landings.slice(1),
     ['scenario.json', scenarioText],
     ['review.json', reviewText],
   ];

@@ -42,3 +42,7 @@ console.log('');
 if (process.env.BENCH_SKIP_POOL !== '1') await poolBench(root);
 console.log('');
 scaleBench(root);
+console.log('');
+// The page against the command line needs chromium and a Vite build: a minute or two, so on request.
+if (process.env.BENCH_PAGE === '1') await (await import('./page.js')).pageBench(root);
+else console.log('Page against the command line at 20,000 samples: not run (BENCH_PAGE=1 runs it; needs /usr/bin/chromium)');

@@ -34,6 +34,8 @@ export interface EngineFigures {
   flightsPerCpuSecond: number;
   medianSteps: number;
   meanEvaluations: number;
+  /** Jacobians of the stiff stepper per flight (each costs about one evaluation). */
+  meanJacobians: number;
   /** Mean accepted steps per phase (rockets; null for other vehicles) over the check flights. */
   phases: StepPhases | null;
   maxLandingError_m: number;
@@ -123,6 +125,7 @@ export function measureEngine(name: string, scenario: Scenario, seconds = 3): En
   const burnTime = rocket && sc.vehicle.motor ? new MotorModel(sc.vehicle.motor).burnTime : 0;
   const railLength = sc.launch.kind === 'rocket' ? sc.launch.rail : 0;
   const evaluationsBefore = model.evaluations;
+  const jacobiansBefore = model.jacobians;
   for (let i = 0; i < checks; i++) {
     stream.select('bench-accuracy', i);
     drawer.draw(stream, 0, model.wind, inputs);
@@ -147,6 +150,7 @@ export function measureEngine(name: string, scenario: Scenario, seconds = 3): En
     maxError = Math.max(maxError, Math.hypot(r.east - ref.east, r.north - ref.north));
   }
   const meanEvaluations = (model.evaluations - evaluationsBefore) / checks;
+  const meanJacobians = (model.jacobians - jacobiansBefore) / checks;
   for (const k of Object.keys(phases) as (keyof StepPhases)[]) phases[k] /= checks;
   // odex at equal accuracy: the loosest tolerance that keeps every check landing within 1 m.
   let equal = { tolerance: NaN, flightsPerSecond: NaN, maxError: NaN };
@@ -171,6 +175,7 @@ export function measureEngine(name: string, scenario: Scenario, seconds = 3): En
     flightsPerCpuSecond,
     medianSteps: median(steps),
     meanEvaluations,
+    meanJacobians,
     phases: rocket ? phases : null,
     maxLandingError_m: maxError,
     odexFlightsPerSecond: checks / (odexTime / 1000),
@@ -191,16 +196,17 @@ export function demoScenarios(folder: string): { name: string; scenario: Scenari
 export function engineHeader(): string[] {
   return [
     '(flights/s by the clock and by this thread\'s CPU time; steps: median per flight, and for rockets the mean accepted steps',
-    ' on the rail / in the burn / coasting up / coming down, + rejected tries; landing error against odex at 1e-11;',
+    ' on the rail / in the burn / coasting up / coming down, + rejected tries; evals: derivative evaluations per flight',
+    ' + Jacobians of the stiff stepper under a canopy; landing error against odex at 1e-11;',
     ' odex "equal accuracy" is its loosest tolerance keeping every landing within 1 m)',
-    'scenario                       flights/s  per CPU s  steps  evals  rail/burn/coast/down+rej   landing error  odex tol  odex flights/s  engine/odex',
+    'scenario                       flights/s  per CPU s  steps  evals+jac  rail/burn/coast/down+rej   landing error  odex tol  odex flights/s  engine/odex',
   ];
 }
 
 export function engineRow(f: EngineFigures): string {
   const p = f.phases;
   const phases = p === null ? '-' : `${p.rail.toFixed(0)}/${p.burn.toFixed(0)}/${p.coast.toFixed(0)}/${p.descent.toFixed(0)}+${p.rejected.toFixed(0)}`;
-  return `${f.scenario.padEnd(30)} ${f.flightsPerSecond.toFixed(0).padStart(9)}  ${f.flightsPerCpuSecond.toFixed(0).padStart(9)}  ${String(f.medianSteps).padStart(5)}  ${f.meanEvaluations.toFixed(0).padStart(5)}  ${phases.padEnd(24)}  ${f.maxLandingError_m.toFixed(3).padStart(11)} m  ${f.odexEqualTolerance.toExponential(0).padStart(8)}  ${f.odexEqualFlightsPerSecond.toFixed(0).padStart(14)}  ${(f.flightsPerSecond / f.odexEqualFlightsPerSecond).toFixed(1).padStart(10)}×`;
+  return `${f.scenario.padEnd(30)} ${f.flightsPerSecond.toFixed(0).padStart(9)}  ${f.flightsPerCpuSecond.toFixed(0).padStart(9)}  ${String(f.medianSteps).padStart(5)}  ${`${f.meanEvaluations.toFixed(0)}+${f.meanJacobians.toFixed(0)}`.padStart(9)}  ${phases.padEnd(24)}  ${f.maxLandingError_m.toFixed(3).padStart(11)} m  ${f.odexEqualTolerance.toExponential(0).padStart(8)}  ${f.odexEqualFlightsPerSecond.toFixed(0).padStart(14)}  ${(f.flightsPerSecond / f.odexEqualFlightsPerSecond).toFixed(1).padStart(10)}×`;
 }
 
 /** Whether a figure meets its target, for the bench lines. */

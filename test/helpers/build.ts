@@ -37,5 +37,5 @@ export function body(kind: Vehicle['kind'], mass: number, cd: number, referenceA
 
 /** Air of constant density, for the constant-density closed forms. */
 export function constantAir(density: number, speedOfSound = 340.29): Air {
-  return { densityAt: () => density, speedOfSoundAt: () => speedOfSound };
+  return { densityAt: () => density, speedOfSoundAt: () => speedOfSound, densitySlopeAt: () => 0 };
 }

@@ -42,7 +42,7 @@ describe('Coriolis deflection of vacuum flights (classical mechanics closed form
   const g = 9.81;
   const omega = WGS84.omega;
   // Uniform gravity (the closed forms assume it) with the Earth's rotation at the latitude.
-  const earth: Earth = { gravityAt: () => g, omegaNorth: omega * Math.cos((lat * Math.PI) / 180), omegaUp: omega * Math.sin((lat * Math.PI) / 180) };
+  const earth: Earth = { gravityAt: () => g, gravitySlopeAt: () => 0, omegaNorth: omega * Math.cos((lat * Math.PI) / 180), omegaUp: omega * Math.sin((lat * Math.PI) / 180) };
   const tight = { rtol: 1e-11, atolPosition: 1e-10, atolVelocity: 1e-10, air: constantAir(0), earth };
 
   it('a drop from rest from height h lands east by (1/3) Ω g t³ cos φ', () => {
@@ -76,7 +76,7 @@ describe('Coriolis deflection of vacuum flights (classical mechanics closed form
     const inputs = emptyInputs(0);
     inputs.speed = 140;
     inputs.elevation = 90;
-    const r = new FlightModel(sc, { ...tight, earth: { gravityAt: () => g, omegaNorth: 0, omegaUp: 0 } }).fly(inputs, () => 0, emptyResult());
+    const r = new FlightModel(sc, { ...tight, earth: { gravityAt: () => g, gravitySlopeAt: () => 0, omegaNorth: 0, omegaUp: 0 } }).fly(inputs, () => 0, emptyResult());
     expect(Math.abs(r.east)).toBeLessThan(1e-6);
   });
 });

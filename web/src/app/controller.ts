@@ -123,6 +123,8 @@ export class Controller implements Actions {
     const controller = new AbortController();
     this.running = controller;
     const started = performance.now();
+    // Marks for the bench (test/bench/page.ts) and a performance trace; they cost nothing to keep.
+    performance.mark('strewn:run');
     this.store.update({ run: { phase: 'running', done: 0, total: samples, rate: 0, message: '' } });
     try {
       const result = await runEngine(accepted.scenario, {
@@ -132,6 +134,7 @@ export class Controller implements Actions {
         onProgress: (p) => this.store.update({ run: { phase: 'running', done: p.done, total: p.total, rate: p.rate, message: '' } }),
       });
       const flightTime = performance.now() - started;
+      performance.mark('strewn:flown');
       const rate = samples / Math.max(1e-3, flightTime / 1000);
       this.store.update({ run: { phase: 'analysing', done: samples, total: samples, rate, message: '' } });
       // Let the page show "analysing" before the analysis takes this thread for a moment.
@@ -144,7 +147,9 @@ export class Controller implements Actions {
         if (run.phase === 'analysing') this.store.update({ run: { ...run, phase: 'cancelled' } });
         return;
       }
+      performance.mark('strewn:composed');
       this.store.update({ study, run: { phase: 'finished', done: samples, total: samples, rate, message: '' } });
+      performance.mark('strewn:shown');
     } catch (error) {
       const run = this.store.get().run;
       if (isCancellation(error)) {

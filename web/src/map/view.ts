@@ -120,9 +120,20 @@ export class MapView {
     return this.styleReady;
   }
 
+  /** Sources given new data whose map source is not yet told (see `show`). */
+  private held: Set<SourceId> | null = null;
+
   private setData(id: SourceId, data: FeatureCollection): void {
     this.given.set(id, data);
-    (this.map.getSource(id) as GeoJSONSource | undefined)?.setData(data);
+    if (this.held) this.held.add(id);
+    else (this.map.getSource(id) as GeoJSONSource | undefined)?.setData(data);
+  }
+
+  /** Hands the held sources' data to the map. */
+  private release(): void {
+    const held = this.held;
+    this.held = null;
+    for (const id of held ?? []) (this.map.getSource(id) as GeoJSONSource | undefined)?.setData(this.given.get(id) ?? EMPTY_COLLECTION);
   }
 
   /** The features last given to a source. */
@@ -132,6 +143,17 @@ export class MapView {
 
   async show(scene: MapScene, options: { fit: 'site' | 'results' | 'none' }): Promise<void> {
     await this.styleReady;
+    // The data is handed to the map only after the view is framed: a source told first builds
+    // its tiles for the old zoom, then again for the new one, and each build is drawn.
+    this.held = new Set();
+    try {
+      this.showHeld(scene, options);
+    } finally {
+      this.release();
+    }
+  }
+
+  private showHeld(scene: MapScene, options: { fit: 'site' | 'results' | 'none' }): void {
     this.decideLegendFold();
     const previous = this.scene;
     this.scene = scene;

@@ -45,6 +45,7 @@ export async function composeStudy(accepted: AcceptedScenario, run: RunResult, f
   const started = performance.now();
   const { scenario } = accepted;
   const { set, analysis, summary } = studyOutcome(scenario, accepted.hash, run, accepted.warnings);
+  performance.mark('strewn:analysed');
   let files: ResultFile[] = [];
   let filesError: string | null = null;
   try {
