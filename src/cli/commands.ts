@@ -1,6 +1,7 @@
 /**
  * The commands, each loaded only when it is called: `strewn --help` and `strewn --version` load
- * none of them, and `strewn check` never loads the engine pool, the analysis or the sheet code.
+ * none of them, and `strewn check` never loads the engine pool, the analysis or the sheet code
+ * (test/cli/startup.test.ts checks both).
  * Each command prints its own help (`strewn run --help`).
  */
 export interface Command {
@@ -9,7 +10,7 @@ export interface Command {
 }
 
 export const COMMANDS: Record<string, Command> = {
-  run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', run: async (args) => (await import('./run.js')).runCommand(args) },
+  run: { summary: 'fly a scenario\'s Monte-Carlo samples and write landing points, zones and a summary', run: runWithEarlyWorkers },
   analyze: { summary: 'draw contours, the keep-out zone and area figures from landing points recorded elsewhere', run: async (args) => (await import('./analyze.js')).analyzeCommand(args) },
   check: { summary: 'validate a scenario and print it normalised to SI units, with warnings', run: async (args) => (await import('./check.js')).checkCommand(args) },
   sheet: { summary: 'draw the review sheet (sheet.pdf, map.svg) again from a results folder', run: async (args) => (await import('./sheet.js')).sheetCommand(args) },
@@ -20,6 +21,19 @@ export const COMMANDS: Record<string, Command> = {
   forecast: { summary: 'read a GRIB2 forecast at the pad and print (or write) the wind and air profile', run: async (args) => (await import('./forecast.js')).forecastCommand(args) },
   envelope: { summary: 'find the highest wind, by direction, at which the keep-out zone still fits the site', run: async (args) => (await import('./envelope.js')).envelopeCommand(args) },
 };
+
+/**
+ * `strewn run`: the engine threads start before the command's code is loaded, so they load the
+ * engine meanwhile; whatever the command did not take is ended however it ends.
+ */
+async function runWithEarlyWorkers(args: string[]): Promise<number> {
+  const early = (await import('./early-workers.js')).startRunWorkers(args);
+  try {
+    return await (await import('./run.js')).runCommand(args, early);
+  } finally {
+    early?.dispose();
+  }
+}
 
 export function mainHelp(): string {
   const lines = [

@@ -4,6 +4,7 @@ import { UsageError } from './errors.js';
 import { STUDY_OPTIONS } from './interrupt.js';
 import { PhaseTimer } from './phase-timer.js';
 import { DISPLAY_OPTIONS, displayChoices } from './display-options.js';
+import type { EarlyWorkers } from './early-workers.js';
 
 /*
  * Only what reads the options and starts the workers is loaded before the workers start; the rest
@@ -51,7 +52,8 @@ Exit status: 0 done, 2 bad input (scenario or options), 1 anything else.
 `;
 }
 
-export async function runCommand(args: string[]): Promise<number> {
+/** `early`: engine threads started before this module was loaded (cli/early-workers.ts); taken first. */
+export async function runCommand(args: string[], early?: EarlyWorkers): Promise<number> {
   const timer = new PhaseTimer();
   timer.lap('start and load');
   const { values, positionals } = parseCommandArgs('run', args, { ...STUDY_OPTIONS, ...DISPLAY_OPTIONS, 'max-samples': { type: 'string' }, shard: { type: 'string' }, 'until-stable': { type: 'boolean' }, 'stable-cap': { type: 'string' } });
@@ -63,7 +65,7 @@ export async function runCommand(args: string[]): Promise<number> {
   const workers = integerOption('workers', values.workers as string | undefined, 1, 256) ?? nodeWorkerCount();
   displayChoices(values);
   // The workers load their code while this thread loads its own, reads the scenario and flies the nominal flight.
-  const prestarted = prestartWorkers(nodeWorkerFactory(), workers);
+  const prestarted = early ?? prestartWorkers(nodeWorkerFactory(), workers);
   try {
     const [{ runStudy }, { DEFAULT_MAX_SAMPLES }, { DEFAULT_STABLE_CAP }] = await Promise.all([
       import('./run-study.js'),
