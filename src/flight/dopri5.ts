@@ -8,6 +8,7 @@
  */
 
 import type { OdeSystem, Stepper } from './stepper.js';
+import { firstStepSize } from './first-step.js';
 
 export type { OdeSystem } from './stepper.js';
 
@@ -138,21 +139,9 @@ export class Dopri5 implements Stepper {
       this.evaluations++;
       this.fsalValid = true;
     }
-    const h = h0 < hMax ? h0 : hMax;
-    for (let i = 0; i < n; i++) tmp[i] = y[i] + h * k1[i];
-    time[0] = t + h;
-    sys.derivative(time, tmp, k2);
+    const h = firstStepSize(sys, time, t, h0, hMax, y, k1, tmp, k2, atol, this.rtol, n, n, 0.2);
     this.evaluations++;
-    let d1 = 0;
-    let d2 = 0;
-    for (let i = 0; i < n; i++) {
-      const sk = atol[i] + this.rtol * Math.abs(y[i]);
-      d1 += (k1[i] / sk) ** 2;
-      d2 += ((k2[i] - k1[i]) / sk) ** 2;
-    }
-    const der = Math.max(Math.sqrt(d2) / h, Math.sqrt(d1));
-    const h1 = der <= 1e-15 ? Math.max(1e-6, h * 1e-3) : Math.exp(0.2 * Math.log(0.01 / der));
-    return Math.min(100 * h, h1, hMax);
+    return h;
   }
 
   /**

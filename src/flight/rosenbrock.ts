@@ -1,4 +1,5 @@
 import type { StiffSystem, Stepper } from './stepper.js';
+import { firstStepSize } from './first-step.js';
 
 /**
  * RODAS: a linearly implicit (Rosenbrock) method of order 4 with an embedded method of order 3,
@@ -269,21 +270,9 @@ export class Rodas implements Stepper {
       this.evaluations++;
       this.f0Valid = true;
     }
-    const h = h0 < hMax ? h0 : hMax;
-    for (let i = 0; i < this.n; i++) arg[i] = y[i] + h * f0[i];
-    time[0] = t + h;
-    sys.derivative(time, arg, fs);
+    const h = firstStepSize(sys, time, t, h0, hMax, y, f0, arg, fs, atol, this.rtol, this.n, M, 0.25);
     this.evaluations++;
-    let d1 = 0;
-    let d2 = 0;
-    for (let i = 0; i < M; i++) {
-      const sk = atol[i] + this.rtol * Math.abs(y[i]);
-      d1 += (f0[i] / sk) ** 2;
-      d2 += ((fs[i] - f0[i]) / sk) ** 2;
-    }
-    const der = Math.max(Math.sqrt(d2) / h, Math.sqrt(d1));
-    const h1 = der <= 1e-15 ? Math.max(1e-6, h * 1e-3) : Math.exp(0.25 * Math.log(0.01 / der));
-    return Math.min(100 * h, h1, hMax);
+    return h;
   }
 
   /**
